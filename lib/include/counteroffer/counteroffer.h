@@ -1,0 +1,523 @@
+/*
+ * counteroffer.h -- the stable C interface of the counteroffer library.
+ *
+ * counteroffer computes how a jointly created surplus is split in the published
+ * alternating-offers bargaining models and their extensions (Rubinstein 1982;
+ * Binmore, Rubinstein & Wolinsky 1986; Muthoo 1999; Baron & Ferejohn 1989;
+ * Fudenberg & Tirole 1983).  Every function here is one row of the project's
+ * function catalogue, with the catalogue's name, argument order and status codes.
+ *
+ * Results are model estimates under the stated assumptions, not financial, legal or
+ * tax advice.
+ *
+ * Rules that hold for every function:
+ *   - The return value is a status (CTO_OK = 0 on success).
+ *   - The output is written on every path: a value on CTO_OK, NaN on
+ *     CTO_E_INVALID / CTO_E_INDETERMINATE / CTO_E_NO_CONVERGENCE / CTO_E_INTERNAL,
+ *     and own's no-deal payoff on CTO_E_NO_DEAL.  A NULL output pointer gives
+ *     CTO_E_INVALID (nothing can be written).
+ *   - A value returned with CTO_OK is finite.
+ *   - No function keeps state, allocates, or throws: all are thread-safe.
+ *   - Booleans are int (0 = false, any other value = true).
+ *   - Conventions: "own" is the party whose result is returned, "other" the
+ *     counterparty; own_opens = own makes the first offer.  A responder accepts
+ *     when indifferent (needed for an equilibrium to exist).
+ *   - Money arguments (surplus, fallbacks, options, costs, stakes) are in one unit
+ *     of the caller's choice; results are in the same unit.
+ *
+ * Accuracy: measured against 50-digit mpmath reference tables computed by
+ * independent methods (backward induction, fixed-point iteration, numerical
+ * maximisation, root finding); the worst relative error is below 1e-15 on every
+ * table (absolute 1e-15 x surplus where a value is near zero).  See README.md.
+ */
+#ifndef COUNTEROFFER_COUNTEROFFER_H
+#define COUNTEROFFER_COUNTEROFFER_H
+
+#include <stddef.h>
+#include <stdint.h>
+
+/* ---- Version ------------------------------------------------------------- */
+/* The single source of the version: CMake reads these three lines. */
+#define CTO_VERSION_MAJOR 1
+#define CTO_VERSION_MINOR 0
+#define CTO_VERSION_PATCH 0
+#define CTO_VERSION_NUMBER \
+    (CTO_VERSION_MAJOR * 10000 + CTO_VERSION_MINOR * 100 + CTO_VERSION_PATCH)
+#define CTO_STRINGIFY_(x) #x
+#define CTO_STRINGIFY(x) CTO_STRINGIFY_(x)
+#define CTO_VERSION_STRING                                                   \
+    CTO_STRINGIFY(CTO_VERSION_MAJOR) "." CTO_STRINGIFY(CTO_VERSION_MINOR) "." \
+        CTO_STRINGIFY(CTO_VERSION_PATCH)
+
+/* ---- Export macro -------------------------------------------------------- */
+#if defined(_WIN32)
+#  if defined(CTO_BUILDING_SHARED)
+#    define CTO_API __declspec(dllexport)
+#  elif defined(CTO_USING_SHARED)
+#    define CTO_API __declspec(dllimport)
+#  else
+#    define CTO_API
+#  endif
+#elif defined(__GNUC__) && __GNUC__ >= 4
+#  define CTO_API __attribute__((visibility("default")))
+#else
+#  define CTO_API
+#endif
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* ---- Status codes (pinned; only ever appended) --------------------------- */
+#define CTO_OK 0               /* success: the output is the model's value      */
+#define CTO_E_INVALID 1        /* invalid argument: NaN, infinite, out of domain */
+#define CTO_E_NO_DEAL 2        /* no rational deal: output = own's no-deal payoff */
+#define CTO_E_INDETERMINATE 3  /* many equilibria (e.g. both factors 1): NaN   */
+#define CTO_E_NO_CONVERGENCE 4 /* a numerical method did not converge: NaN     */
+#define CTO_E_INTERNAL 5       /* a defect in the library: NaN                 */
+
+/* Static, never NULL: "ok", "invalid argument", ...; "unknown status" otherwise. */
+CTO_API const char *cto_status_name(int status);
+/* Static, never NULL: one sentence on what the status means for the output. */
+CTO_API const char *cto_status_message(int status);
+
+/* Runtime version: equals CTO_VERSION_NUMBER / CTO_VERSION_STRING of the header
+ * the library was built with (check at start-up that they agree). */
+CTO_API unsigned cto_version_number(void);
+CTO_API const char *cto_version_string(void);
+
+/* ---- Option constants ---------------------------------------------------- */
+#define CTO_UTILITY_POWER 0       /* u(x) = x^a, 0 < a <= 1 (CRRA)              */
+#define CTO_UTILITY_EXPONENTIAL 1 /* u(x) = (1 - exp(-k x)) / k, k > 0 (CARA)   */
+#define CTO_ROLE_PROPOSER 0       /* majority_share: the recognised proposer     */
+#define CTO_ROLE_PARTNER 1        /* majority_share: a coalition partner         */
+#define CTO_WRT_OWN 0             /* share_sensitivity: d share / d own rate     */
+#define CTO_WRT_OTHER 1           /* share_sensitivity: d share / d other rate   */
+
+/* Which walk-away (outside) option binds in cto_solve. */
+#define CTO_BINDS_NONE 0
+#define CTO_BINDS_OWN 1
+#define CTO_BINDS_OTHER 2
+#define CTO_BINDS_BOTH 3
+
+/* =========================================================================
+ * Discounting
+ * ========================================================================= */
+
+/*! cto_round_factor: per-round discount factor from an annual rate.
+ *  Formula: annual effective (continuous = 0): factor = (1 + rate)^(-days/basis)
+ *           = exp(-log1p(rate) * days / basis);
+ *           continuous (continuous != 0): factor = exp(-rate * days / basis).
+ *  Source: standard compounding (common practice, no source); used as
+ *          delta = exp(-r Delta) in Rubinstein (1982) s.1 and Muthoo (1999) s.3.2.
+ *  rate   annual rate, fraction per year (0.08 = 8%), >= 0, finite
+ *  days   time between offers, days, >= 0, finite
+ *  basis  days per year, > 0 (365 by convention)
+ *  Status: CTO_OK -> factor in [0, 1]; CTO_E_INVALID -> NaN.
+ *  Accuracy: <= 1 ulp beyond the rounding of exp and log1p (relative 2e-16). */
+CTO_API int cto_round_factor(double rate, double days, double basis, int continuous,
+                             double *out);
+
+/* =========================================================================
+ * Alternating offers (Rubinstein 1982)
+ * ========================================================================= */
+
+/*! cto_share: own share, alternating offers, infinite horizon.
+ *  Formula (Rubinstein 1982, main theorem; Muthoo 1999 ch.3), with
+ *  d_own = own_factor and d_oth = other_factor:
+ *    own opens:    surplus (1 - d_oth) / (1 - d_own d_oth)
+ *    other opens:  surplus d_own (1 - d_oth) / (1 - d_own d_oth)
+ *  1 - d_own d_oth is computed as (1 - d_own) + d_own (1 - d_oth), free of cancellation.
+ *  own_factor, other_factor  per-round discount factors in [0, 1]
+ *  surplus    money to split, finite; own_opens  own makes the first offer
+ *  Status: CTO_OK -> share in [0, surplus];
+ *          CTO_E_NO_DEAL (surplus <= 0) -> 0;
+ *          CTO_E_INDETERMINATE (both factors 1: every split is an equilibrium) -> NaN;
+ *          CTO_E_INVALID -> NaN.
+ *  One factor 1 is allowed: the infinitely patient side takes everything
+ *  (REFERENCE s.12).  Both 0 is the ultimatum game (the opener takes all).
+ *  Accuracy: relative error < 1e-15. */
+CTO_API int cto_share(double own_factor, double other_factor, double surplus,
+                      int own_opens, double *out);
+
+/*! cto_share_from_rates: cto_share with factors from annual rates, cancellation-free.
+ *  Formula: rho_i = c(rate_i) days / basis, c(R) = log1p(R) (annual effective) or
+ *    R (continuous); own opens: surplus expm1(-rho_oth) / expm1(-(rho_own + rho_oth));
+ *    other opens: surplus exp(-rho_own) expm1(-rho_oth) / expm1(-(rho_own + rho_oth)).
+ *  Source: Rubinstein (1982); Muthoo (1999) s.3.2 (delta = exp(-r Delta)).
+ *  own_rate, other_rate  annual rates, >= 0; days  time between offers, >= 0
+ *  basis  days per year, > 0; continuous  rates are continuously compounded
+ *  Status: as cto_share; CTO_E_INDETERMINATE when rho_own = rho_oth = 0 (both
+ *  rates 0, or days = 0: use cto_limit_share for the frequent-offer limit).
+ *  Accuracy: relative error < 1e-15, also with offers seconds apart. */
+CTO_API int cto_share_from_rates(double own_rate, double other_rate, double days,
+                                 double surplus, int own_opens, double basis,
+                                 int continuous, double *out);
+
+/*! cto_limit_share: own share as offers become infinitely frequent.
+ *  Formula: surplus other_rate / (own_rate + other_rate)   (the limit of
+ *  cto_share_from_rates with continuous = 1 as days -> 0; for annual effective
+ *  rates R pass log1p(R)).
+ *  Source: Binmore, Rubinstein & Wolinsky (1986); Muthoo (1999) ch.3.
+ *  own_rate, other_rate  continuously compounded rates, >= 0 (any common unit)
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= 0) -> 0;
+ *          CTO_E_INDETERMINATE (both rates 0) -> NaN; CTO_E_INVALID -> NaN.
+ *  Accuracy: 1 rounding in the quotient (relative 2.2e-16) and 1 in the product. */
+CTO_API int cto_limit_share(double own_rate, double other_rate, double surplus,
+                            double *out);
+
+/*! cto_breakdown_share: own share with a risk that talks break down for good.
+ *  Model (BRW 1986; Muthoo 1999 ch.4; timing of REFERENCE s.4.2): after each
+ *  rejection, with probability p talks end and each side gets its fallback b_i at
+ *  once; otherwise the rejecter counter-offers next round.  With
+ *  alpha_i = (1 - p) d_i and the no-deal value d_i^0 = p b_i / (1 - alpha_i)
+ *  (the expected present value of waiting for breakdown), the opener gets
+ *      d_open^0 + (surplus - d_own^0 - d_oth^0) (1 - alpha_resp) / (1 - alpha_own alpha_oth)
+ *  which equals REFERENCE s.4.2's x* and, with d = 1, s.4.1's b_A + S/(2 - p).
+ *  own_factor, other_factor in [0, 1]; breakdown_prob p in [0, 1];
+ *  own_fallback, other_fallback: money each side gets on breakdown, finite.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= d_own^0 + d_oth^0) -> d_own^0;
+ *          CTO_E_INDETERMINATE (p = 0 and both factors 1) -> NaN; CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15 of the share above the no-deal value. */
+CTO_API int cto_breakdown_share(double own_factor, double other_factor,
+                                double breakdown_prob, double own_fallback,
+                                double other_fallback, double surplus, int own_opens,
+                                double *out);
+
+/*! cto_outside_option_share: own share when a responder may walk away.
+ *  Model (Shaked & Sutton 1984; Binmore, Shaked & Sutton 1989; Muthoo 1999 ch.5;
+ *  Osborne & Rubinstein 1990 ch.3): a responder may accept, counter-offer next
+ *  round, or opt out at once for its outside option w_i.  Stationary conditions
+ *      surplus - x = max(w_resp, d_resp y),  surplus - y = max(w_open, d_open x)
+ *  solved exactly over the four linear regimes (REFERENCE s.5 table).
+ *  The option is a constraint, not a threat point (outside option principle).
+ *  own_outside, other_outside: money, finite (a negative option never binds).
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= max(w_own,0) + max(w_oth,0)) ->
+ *          max(w_own, 0); CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15. */
+CTO_API int cto_outside_option_share(double own_factor, double other_factor,
+                                     double own_outside, double other_outside,
+                                     double surplus, int own_opens, double *out);
+
+/*! cto_inside_option_share: own share with status-quo payoffs during talks.
+ *  Model (Muthoo 1999 ch.6): while talks go on each side collects a flow whose
+ *  present value over perpetual disagreement is g_i; the opener gets
+ *      g_open + (surplus - g_own - g_oth)(1 - d_resp)/(1 - d_own d_oth).
+ *  own_inside, other_inside: money (present value of the status quo), finite.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= g_own + g_oth) -> g_own;
+ *          CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15 of the share above g_own. */
+CTO_API int cto_inside_option_share(double own_factor, double other_factor,
+                                    double own_inside, double other_inside,
+                                    double surplus, int own_opens, double *out);
+
+/* ---- solve: every feature at once ---------------------------------------- */
+
+/*! Input of cto_solve.  Set size = sizeof(cto_solve_input); fields may be appended
+ *  in later versions (the library reads only the first `size` bytes it knows). */
+typedef struct cto_solve_input {
+    size_t size;
+    double own_factor;      /* per-round discount factor, [0, 1]                */
+    double other_factor;    /* per-round discount factor, [0, 1]                */
+    double breakdown_prob;  /* chance talks end after each rejection, [0, 1]    */
+    double own_fallback;    /* money to own on breakdown                        */
+    double other_fallback;  /* money to other on breakdown                      */
+    double own_inside;      /* present value of own's status quo (inside option)*/
+    double other_inside;    /* present value of other's status quo              */
+    double own_outside;     /* own's walk-away value; used when has_own_outside */
+    double other_outside;   /* other's walk-away value; used when has_other_... */
+    int has_own_outside;    /* 0: own has no walk-away option                   */
+    int has_other_outside;  /* 0: other has no walk-away option                 */
+    double surplus;         /* money to split                                   */
+    int own_opens;          /* own makes the first offer                        */
+} cto_solve_input;
+
+/*! Outcome of cto_solve.  Set size = sizeof(cto_solve_outcome) before the call. */
+typedef struct cto_solve_outcome {
+    size_t size;
+    double own_share;       /* own's payoff (money)                             */
+    double other_share;     /* other's payoff (money)                           */
+    int binding;            /* CTO_BINDS_NONE / _OWN / _OTHER / _BOTH           */
+    int boundary;           /* 1: an option is within 1e-12 x surplus of binding*/
+    int deal_rational;      /* 1: the surplus exceeds the no-deal payoffs       */
+    double own_no_deal;     /* own's no-deal payoff max(w, d^0)                 */
+    double other_no_deal;   /* other's no-deal payoff                           */
+} cto_solve_outcome;
+
+/*! cto_solve: the combined model of the catalogue.  With A the opener,
+ *      surplus - x = max(w_B, p b_B + (1-p)((1-d_B) g_B + d_B y))
+ *      surplus - y = max(w_A, p b_A + (1-p)((1-d_A) g_A + d_A x))
+ *  Writing alpha_i = (1-p) d_i and the no-deal value of waiting
+ *  d_i^0 = (p b_i + (1-p)(1-d_i) g_i)/(1 - alpha_i), it is the outside-option model
+ *  of REFERENCE s.5 on the surplus above (d_A^0, d_B^0) with factors alpha_i and
+ *  options w_i - d_i^0, solved exactly over its four linear regimes.
+ *  Sources: Rubinstein (1982); BRW (1986); Muthoo (1999) chs.3-6.
+ *  Status: CTO_OK -> both shares, the binding option, deal_rational = 1;
+ *          CTO_E_NO_DEAL -> shares = no-deal payoffs, deal_rational = 0;
+ *          CTO_E_INDETERMINATE (p = 0, both factors 1) -> NaN shares;
+ *          CTO_E_INVALID (bad field, NULL, size too small) -> NaN shares.
+ *  The outcome is written whenever out != NULL and out->size is large enough. */
+CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out);
+
+/*! cto_deadline_share: own share when at most `rounds` offers can be made.
+ *  Model (Stahl 1972; Gibbons 1992 s.2.1.D; REFERENCE s.3): proposers alternate,
+ *  own proposes in round 1 when own_opens; if the last offer is rejected the
+ *  parties get their deadline payoffs (valued at the date of the final rejection).
+ *  Exact backward induction; when agreement holds from some round on, the
+ *  remaining rounds are taken at once by the closed form
+ *      x_{t-2m} = x* + q^m (x_t - x*),  q = d_own d_oth, q^m = exp(m log q),
+ *  so the cost does not grow with `rounds` (up to 2^63 - 1).
+ *  rounds  count >= 0 (0: no bargaining);  fallbacks: deadline payoffs, money.
+ *  Status: CTO_OK -> own's payoff (agreement in round 1, or later where delay is
+ *          the equilibrium); CTO_E_NO_DEAL (no agreement in any round, or
+ *          rounds = 0) -> own's discounted deadline payoff;
+ *          CTO_E_NO_CONVERGENCE (a pathological pattern of delay that does not
+ *          settle within 10^6 rounds) -> NaN; CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15 (plus 1e-16 x rounds x |log q| in q^m). */
+CTO_API int cto_deadline_share(double own_factor, double other_factor, int64_t rounds,
+                               double own_fallback, double other_fallback,
+                               double surplus, int own_opens, double *out);
+
+/*! cto_fixed_cost_share: own share when each round costs a fixed amount.
+ *  Model (Rubinstein 1982, fixed-cost case; REFERENCE s.2 generalised table):
+ *    own cost < other cost: opener own gets surplus; opener other keeps min(c_own, S)
+ *    own cost > other cost: opener own gets min(c_oth, S); opener other takes all.
+ *  own_cost, other_cost  money per round, >= 0.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= 0) -> 0;
+ *          CTO_E_INDETERMINATE (equal costs below the surplus: any split in
+ *          [c, surplus] is an equilibrium) -> NaN; CTO_E_INVALID.
+ *  The outcome jumps at equal costs: treat near-equal costs with care. */
+CTO_API int cto_fixed_cost_share(double own_cost, double other_cost, double surplus,
+                                 int own_opens, double *out);
+
+/*! cto_delay_cost: expected value one party loses if agreement slips one round.
+ *  Formula: stake - ((1-p) factor stake + p fallback)
+ *         = p (stake - fallback) + (1-p)(1-factor) stake    (computed this way).
+ *  Source: REFERENCE s.10 (holding cost (1 - d) s), s.4.2 timing.
+ *  factor in [0,1]; stake: money at stake, finite; p in [0,1]; fallback: money.
+ *  Status: CTO_OK; CTO_E_INVALID -> NaN.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_delay_cost(double factor, double stake, double breakdown_prob,
+                           double fallback, double *out);
+
+/*! cto_first_mover_advantage: own share as opener minus own share as responder.
+ *  Formula: surplus (1 - d_own)(1 - d_oth) / (1 - d_own d_oth)  (REFERENCE s.10;
+ *  equal for both parties).  Source: Rubinstein (1982); Muthoo (1999) ch.3.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= 0) -> 0; CTO_E_INDETERMINATE
+ *  (both factors 1); CTO_E_INVALID.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_first_mover_advantage(double own_factor, double other_factor,
+                                      double surplus, double *out);
+
+/* =========================================================================
+ * Nash bargaining and risk aversion
+ * ========================================================================= */
+
+/*! cto_nash_share: own amount in the generalised Nash bargaining solution.
+ *  Maximises (u_o(x) - u_o(b_o))^tau (u_t(S-x) - u_t(b_t))^(1-tau) over x, with
+ *  u(x) = x^a (a = curvature in (0, 1]; a = 1 is risk neutral).
+ *  Linear: x = b_o + tau (S - b_o - b_t).  Curvature below 1 and zero fallbacks:
+ *  x = S a_o tau / (a_o tau + a_t (1 - tau)); otherwise the first-order condition is
+ *  solved by a bracketed root finder (Brent 1973) to full double precision.
+ *  Sources: Nash (1950); Kalai (1977); Muthoo (1999) ch.2; REFERENCE s.7.
+ *  own_fallback, other_fallback  disagreement payoffs, money (>= 0 when a
+ *  curvature is below 1); own_weight tau in [0,1]; curvatures in (0, 1].
+ *  Status: CTO_OK; CTO_E_NO_DEAL (S <= b_o + b_t) -> b_o; CTO_E_NO_CONVERGENCE;
+ *          CTO_E_INVALID.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_nash_share(double own_fallback, double other_fallback,
+                           double own_weight, double surplus, double own_curvature,
+                           double other_curvature, double *out);
+
+/*! cto_risk_averse_share: alternating offers with concave utilities.
+ *  Stationary conditions (BRW 1986; Muthoo 1999 ch.3-4; REFERENCE s.7, s.4.1),
+ *  with A the opener:
+ *      u_B(S - x) = p u_B(b_B) + (1-p) d_B u_B(y),
+ *      u_A(S - y) = p u_A(b_A) + (1-p) d_A u_A(x).
+ *  utility = CTO_UTILITY_POWER: u = x^a, a in (0, 1]; with p = 0 the closed form
+ *  uses effective factors d^(1/a).  CTO_UTILITY_EXPONENTIAL: u = (1 - e^(-k x))/k,
+ *  k > 0 (shares then depend on the scale of the surplus).  Otherwise the
+ *  conditions are reduced to one equation in the first-mover gap x + y - S, which
+ *  is well conditioned near d = 1, and solved by a bracketed root finder to full
+ *  double precision; running out of iterations is CTO_E_NO_CONVERGENCE.
+ *  Fallbacks must be >= 0 for power utility.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (S <= c_own + c_oth, c_i the certainty
+ *  equivalent of waiting for breakdown, u_i^-1(p u_i(b_i)/(1 - alpha_i))) -> c_own;
+ *  CTO_E_INDETERMINATE (p = 0, both factors 1); CTO_E_NO_CONVERGENCE; CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15 (absolute 1e-15 x surplus near zero). */
+CTO_API int cto_risk_averse_share(double own_factor, double other_factor,
+                                  double own_curvature, double other_curvature,
+                                  int utility, double breakdown_prob,
+                                  double own_fallback, double other_fallback,
+                                  double surplus, int own_opens, double *out);
+
+/* =========================================================================
+ * More than two parties
+ * ========================================================================= */
+
+/*! cto_group_share: unanimity bargaining among n parties, stationary equilibrium.
+ *  Formula (Herrero 1985; Sutton 1986; Osborne & Rubinstein 1990 s.3.13):
+ *    share of the party k places after the proposer = S d^k (1 - d)/(1 - d^n),
+ *  with 1 - d^n = -expm1(n log d).  n = 1: the single party takes S.
+ *  factor d in [0,1]; parties n >= 1; position k in [0, n-1].
+ *  Status: CTO_OK; CTO_E_NO_DEAL (S <= 0) -> 0; CTO_E_INDETERMINATE (d = 1 and
+ *  n >= 2); CTO_E_INVALID.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_group_share(double factor, int64_t parties, int64_t position,
+                            double surplus, double *out);
+
+/*! cto_majority_share: Baron & Ferejohn (1989) closed-rule legislative bargaining.
+ *  Formula: proposer S (1 - d (q - 1)/n) = S ((n - q + 1) + (1 - d)(q - 1))/n;
+ *           each coalition partner S d / n.   q = votes needed (proposer included).
+ *  votes_needed 0 means a simple majority, q = floor(n/2) + 1; else 1 <= q <= n.
+ *  role CTO_ROLE_PROPOSER or CTO_ROLE_PARTNER (a partner exists only when q >= 2).
+ *  Status: CTO_OK; CTO_E_NO_DEAL (S <= 0) -> 0; CTO_E_INVALID.
+ *  Accuracy: relative error < 1e-15. */
+CTO_API int cto_majority_share(double factor, int64_t parties, int64_t votes_needed,
+                               int role, double surplus, double *out);
+
+/* =========================================================================
+ * Inverse problems and sensitivities
+ * ========================================================================= */
+
+/*! cto_implied_factor: own per-round factor that makes an observed split the
+ *  Rubinstein equilibrium (inverse of cto_share with surplus 1).
+ *  Own opens: 1 - d_own = (1 - s)(1 - d_oth)/(s d_oth), needs s in [1 - d_oth, 1].
+ *  Other opens: 1 - d_own = (1 - s)(1 - d_oth)/(s + (1 - s)(1 - d_oth)).
+ *  observed_share s: own's fraction of the surplus, [0, 1]; other_factor in [0,1].
+ *  Status: CTO_OK -> factor in [0,1]; CTO_E_INDETERMINATE (the share does not
+ *  depend on own's factor: other_factor 0 when own opens, 1 when other opens,
+ *  with the only reachable share) -> NaN; CTO_E_INVALID (share not reachable
+ *  by any factor in [0,1]) -> NaN.   Accuracy: relative error < 1e-15 in 1 - d. */
+CTO_API int cto_implied_factor(double observed_share, double other_factor,
+                               int own_opens, double *out);
+
+/*! cto_implied_rate: cto_implied_factor as an annual rate.
+ *  With rho_oth = c(other_rate) days/basis: own opens m = (1-s) expm1(rho_oth)/s,
+ *  other opens m = (1-s) u / (s + (1-s) u), u = -expm1(-rho_oth); then
+ *  rho_own = -log1p(-m) and rate = rho_own basis/days (continuous) or
+ *  expm1(rho_own basis / days) (annual effective).
+ *  Status: CTO_OK -> rate >= 0; CTO_E_INDETERMINATE (days = 0 or the share does
+ *  not depend on own's rate); CTO_E_INVALID (share not reachable with a finite
+ *  rate, or bad input).   Accuracy: relative error < 1e-14. */
+CTO_API int cto_implied_rate(double observed_share, double other_rate, double days,
+                             int own_opens, double basis, int continuous,
+                             double *out);
+
+/*! cto_share_sensitivity: exact derivative of cto_share_from_rates's own share
+ *  with respect to own's (wrt = CTO_WRT_OWN) or other's (CTO_WRT_OTHER) annual
+ *  rate, in money per unit of rate (per 1.00 = 100 percentage points).
+ *  With a = -expm1(-rho_own), b = -expm1(-rho_oth), D = -expm1(-(rho_own+rho_oth)):
+ *    own opens:   d/d rho_own = -S b e^-(rho_own+rho_oth)/D^2,
+ *                 d/d rho_oth =  S a e^-rho_oth / D^2;
+ *    other opens: d/d rho_own = -S b e^-rho_own / D^2,
+ *                 d/d rho_oth =  S a e^-(rho_own+rho_oth) / D^2;
+ *  times d rho/d rate = days/basis / (1 + rate) (effective) or days/basis.
+ *  Status: as cto_share_from_rates.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_share_sensitivity(double own_rate, double other_rate, double days,
+                                  int wrt, double surplus, int own_opens,
+                                  double basis, int continuous, double *out);
+
+/* =========================================================================
+ * Incomplete information
+ * ========================================================================= */
+
+/*! cto_screening_profit: seller's best expected revenue over two price offers to a
+ *  buyer of unknown value (Fudenberg & Tirole 1983 setting; REFERENCE s.9).
+ *  The maximum of  pool v_L;  screen q((1-d_b) v_H + d_b v_L) + (1-q) d_s v_L;
+ *  and, when q > v_L/v_H, skim v_H((q v_H - v_L) + d_s (1-q) v_L)/(v_H - v_L).
+ *  high_value v_H >= low_value v_L > 0 (money); high_prob q in [0,1];
+ *  seller_factor d_s, buyer_factor d_b in [0,1].
+ *  Status: CTO_OK; CTO_E_INVALID -> NaN.   Accuracy: relative error < 1e-15. */
+CTO_API int cto_screening_profit(double high_value, double low_value,
+                                 double high_prob, double seller_factor,
+                                 double buyer_factor, double *out);
+
+/* =========================================================================
+ * The catalogue as data: one table that drives the wrappers
+ * =========================================================================
+ * Every function above is described once here: its name, its Calc name, its
+ * arguments (kind, default, display label, one-line help with units and domain)
+ * and its outputs.  cto_call and cto_call_strided evaluate any function with
+ * all arguments passed as doubles; they convert and validate the doubles
+ * (booleans must be 0 or 1, counts and choices whole numbers) and report which
+ * argument was invalid.  The Python package and the Calc add-in are built on
+ * these, so a new catalogue row needs no new wrapper code. */
+
+/* Argument kinds. */
+#define CTO_ARG_REAL 0     /* finite real (money)                               */
+#define CTO_ARG_UNIT 1     /* finite, in [0, 1] (factors, probabilities, weights)*/
+#define CTO_ARG_NONNEG 2   /* finite, >= 0 (rates, days, costs)                 */
+#define CTO_ARG_POSITIVE 3 /* finite, > 0 (basis, curvature, values)            */
+#define CTO_ARG_BOOL 4     /* 0 or 1                                           */
+#define CTO_ARG_COUNT 5    /* whole number >= min_count, within int64           */
+#define CTO_ARG_CHOICE 6   /* whole number indexing `choices`                   */
+#define CTO_ARG_OPTIONAL 7 /* finite real, or -infinity meaning "absent"        */
+
+typedef struct cto_arg_info {
+    const char *name;            /* catalogue (Python keyword) name, e.g. "surplus" */
+    const char *label;           /* display name, e.g. "Surplus"                    */
+    const char *help;            /* one line: meaning, units, domain                */
+    int kind;                    /* CTO_ARG_*                                       */
+    int has_default;             /* 1: optional, default_value applies              */
+    double default_value;        /* as a double (bool 0/1, choice index, -inf)      */
+    int64_t min_count;           /* CTO_ARG_COUNT: smallest allowed value           */
+    const char *const *choices;  /* CTO_ARG_CHOICE: NULL-terminated option names    */
+} cto_arg_info;
+
+typedef struct cto_output_info {
+    const char *name;            /* e.g. "own_share"                                */
+    const char *help;            /* one line                                        */
+} cto_output_info;
+
+typedef struct cto_function_info {
+    size_t size;                 /* sizeof(cto_function_info) of the library        */
+    int id;                      /* index in the table, for cto_call                */
+    const char *name;            /* catalogue name, e.g. "share"                    */
+    const char *calc_name;       /* Calc name, e.g. "DEALSHARE"                     */
+    const char *summary;         /* one line                                        */
+    const char *formula;         /* the formula, plain text                         */
+    const char *source;          /* published source: author, year, section         */
+    const char *statuses;        /* what each status returns, plain text            */
+    int n_args;
+    const cto_arg_info *args;
+    int n_outputs;
+    const cto_output_info *outputs;
+} cto_function_info;
+
+/* Number of functions in the catalogue (stable order; only ever appended). */
+CTO_API size_t cto_function_count(void);
+/* The i-th function, NULL when i >= cto_function_count(). */
+CTO_API const cto_function_info *cto_function_at(size_t index);
+/* The function with catalogue name `name`, NULL when there is none. */
+CTO_API const cto_function_info *cto_function_find(const char *name);
+
+/*! cto_call: evaluate catalogue function `id` with all n_args arguments as
+ *  doubles (defaults are not applied here: pass every argument).  Writes
+ *  n_outputs values to outputs.  *bad_arg (may be NULL) receives the index of
+ *  the first invalid argument, or -1.  Returns the function's status. */
+CTO_API int cto_call(int id, const double *args, double *outputs, int *bad_arg);
+
+/*! Per-call summary of a strided evaluation.  Set size before the call. */
+#define CTO_REPORT_SLOTS 8
+typedef struct cto_batch_report {
+    size_t size;
+    size_t count[CTO_REPORT_SLOTS];        /* elements per status code          */
+    size_t first_index[CTO_REPORT_SLOTS];  /* first element with that status    */
+    int first_bad_arg;                     /* argument index of the first invalid
+                                              element, or -1                    */
+} cto_batch_report;
+
+/*! cto_call_strided: evaluate function `id` over n elements.  Argument j of
+ *  element i is read at args[j] + i * arg_strides[j] (bytes; 0 broadcasts one
+ *  value); output k is written at outputs[k] + i * output_strides[k].  statuses,
+ *  when not NULL, receives each element's status as a signed char with stride
+ *  status_stride.  report (may be NULL) is filled in.  Every element's outputs
+ *  are written.  Returns CTO_OK, or CTO_E_INVALID when id or a pointer is bad
+ *  (then nothing is written).  The loop is specialised per function. */
+CTO_API int cto_call_strided(int id, size_t n, const char *const *args,
+                             const ptrdiff_t *arg_strides, char *const *outputs,
+                             const ptrdiff_t *output_strides, signed char *statuses,
+                             ptrdiff_t status_stride, cto_batch_report *report);
+
+#ifdef __cplusplus
+} /* extern "C" */
+#endif
+
+#endif /* COUNTEROFFER_COUNTEROFFER_H */
