@@ -1,0 +1,60 @@
+# Shared helpers for the project's scripts (sourced, not run).
+# Every helper is idempotent: it installs only what is missing.
+set -euo pipefail
+CTO_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+CTO_BUILD="${CTO_BUILD:-$CTO_ROOT/build}"
+CTO_VENV="${CTO_VENV:-$CTO_ROOT/.venv}"
+export LC_ALL=C.UTF-8
+
+say() { printf '\n== %s\n' "$*"; }
+die() { printf 'error: %s\n' "$*" >&2; exit 1; }
+
+# ensure_apt PKG...: install the Debian packages that are not installed yet.
+ensure_apt() {
+  local missing=()
+  local p
+  for p in "$@"; do
+    dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'install ok installed' || missing+=("$p")
+  done
+  if [ "${#missing[@]}" -gt 0 ]; then
+    say "installing Debian packages: ${missing[*]}"
+    local sudo=""
+    [ "$(id -u)" -eq 0 ] || sudo="sudo"
+    $sudo apt-get update -q
+    DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -q --no-install-recommends "${missing[@]}"
+  fi
+}
+
+# The Debian packages every part of the build and tests needs (one list).
+CTO_APT_PACKAGES=(
+  build-essential cmake pkg-config catch2 pybind11-dev
+  python3 python3-venv python3-dev python3-uno
+  clang libclang-rt-14-dev abigail-tools
+  libreoffice-calc-nogui libreoffice-dev libreoffice-dev-common
+  zip unzip poppler-utils fonts-dejavu-core
+)
+
+# ensure_venv: the project's virtual environment, from Debian's Python (which is also
+# the interpreter LibreOffice's Python-UNO bridge belongs to), with the pinned tools.
+ensure_venv() {
+  local stamp="$CTO_VENV/.requirements.sha256"
+  local want
+  want="$(sha256sum "$CTO_ROOT/scripts/requirements.txt" | cut -d' ' -f1)"
+  if [ ! -x "$CTO_VENV/bin/python" ]; then
+    say "creating $CTO_VENV"
+    /usr/bin/python3 -m venv --system-site-packages "$CTO_VENV"
+  fi
+  if [ ! -f "$stamp" ] || [ "$(cat "$stamp")" != "$want" ]; then
+    say "installing Python tools into $CTO_VENV"
+    "$CTO_VENV/bin/python" -m pip install -q --upgrade pip
+    "$CTO_VENV/bin/python" -m pip install -q -r "$CTO_ROOT/scripts/requirements.txt"
+    echo "$want" > "$stamp"
+  fi
+}
+
+# build_core DIR [CMAKE ARGS...]: configure and build the C++ tree into DIR.
+build_core() {
+  local dir="$1"; shift
+  cmake -S "$CTO_ROOT" -B "$dir" -DCMAKE_BUILD_TYPE=Release "$@" >/dev/null
+  cmake --build "$dir" -j "$(nproc)"
+}

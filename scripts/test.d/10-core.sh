@@ -1,0 +1,9 @@
+#!/usr/bin/env bash
+# The C++ core: Catch2 tests (Release), then again under ASan+UBSan.
+source "$(dirname "${BASH_SOURCE[0]}")/../lib.sh"
+build_core "$CTO_BUILD/core" -DCTO_BUILD_TESTS=ON
+ctest --test-dir "$CTO_BUILD/core" --output-on-failure -j "$(nproc)"
+build_core "$CTO_BUILD/asan" -DCTO_BUILD_TESTS=ON -DCTO_SANITIZE=address,undefined \
+  -DCMAKE_BUILD_TYPE=RelWithDebInfo
+ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
+  ctest --test-dir "$CTO_BUILD/asan" --output-on-failure -j "$(nproc)"
