@@ -1,0 +1,185 @@
+// Internal C++ core of counteroffer: the mathematics, with no knowledge of any wrapper.
+//
+// Every model function has the shape
+//     int name(inputs..., double *out, int *bad)
+// It validates its inputs, writes *out on every path and returns a CTO_* status; on
+// CTO_E_INVALID, *bad receives the catalogue index of the first invalid argument.
+// Nothing here throws, allocates or keeps state.
+//
+// The formulas and their sources are documented beside each function in the public
+// header lib/include/counteroffer/counteroffer.h; comments here explain the numerics.
+#ifndef CTO_CORE_HPP
+#define CTO_CORE_HPP
+
+#include <cfloat>
+#include <cmath>
+#include <cstdint>
+#include <limits>
+
+#include "counteroffer/counteroffer.h"
+
+namespace cto::core {
+
+inline constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
+inline constexpr double kInf = std::numeric_limits<double>::infinity();
+
+// ---- argument checks ---------------------------------------------------------
+// Records the first failing argument index.  NaN fails every check.
+struct Check {
+    int bad = -1;
+    void fail(int i) {
+        if (bad < 0) bad = i;
+    }
+    void real(double x, int i) {
+        if (!std::isfinite(x)) fail(i);
+    }
+    void unit(double x, int i) {
+        if (!(x >= 0.0 && x <= 1.0)) fail(i);
+    }
+    void nonneg(double x, int i) {
+        if (!(x >= 0.0 && x <= DBL_MAX)) fail(i);
+    }
+    void positive(double x, int i) {
+        if (!(x > 0.0 && x <= DBL_MAX)) fail(i);
+    }
+    // finite, or -infinity meaning "absent"
+    void optional(double x, int i) {
+        if (!(std::isfinite(x) || x == -kInf)) fail(i);
+    }
+    bool ok() const { return bad < 0; }
+};
+
+// Writes the invalid-argument outcome.
+inline int invalid(const Check &c, double *out, int *bad) {
+    *out = kNaN;
+    if (bad) *bad = c.bad;
+    return CTO_E_INVALID;
+}
+inline int invalid_at(int index, double *out, int *bad) {
+    *out = kNaN;
+    if (bad) *bad = index;
+    return CTO_E_INVALID;
+}
+inline int status_only(int status, double value, double *out, int *bad) {
+    *out = value;
+    if (bad) *bad = -1;
+    return status;
+}
+// A result that overflowed although every input was finite: the magnitudes are out of
+// range for double arithmetic, which is reported as an invalid argument (never inf).
+inline int finish(double value, double *out, int *bad, int blame = 0) {
+    if (!std::isfinite(value)) return invalid_at(blame, out, bad);
+    return status_only(CTO_OK, value, out, bad);
+}
+
+// ---- Rubinstein kernels -----------------------------------------------------
+// With om_x = 1 - d_x (exact for d_x >= 1/2), 1 - d_open d_resp is formed as
+// om_open + d_open om_resp: a sum of non-negative terms, so no cancellation.
+// Rubinstein (1982), main theorem; Muthoo (1999) ch.3.
+inline double rub_den(double d_open, double om_open, double om_resp) {
+    return om_open + d_open * om_resp;
+}
+// Opener's share of S: S (1 - d_resp) / (1 - d_open d_resp).
+inline double rub_opener(double S, double om_resp, double den) { return S * om_resp / den; }
+// Responder's share of S: S d_resp (1 - d_open) / (1 - d_open d_resp).
+inline double rub_responder(double S, double d_resp, double om_open, double den) {
+    return S * d_resp * om_open / den;
+}
+
+// cto_share, inline because it is the hottest loop of the wrappers.
+inline int share(double own_factor, double other_factor, double surplus, bool own_opens,
+                 double *out, int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.real(surplus, 2);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    if (own_factor == 1.0 && other_factor == 1.0)
+        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
+    double v;
+    if (own_opens) {
+        v = rub_opener(surplus, om_oth, rub_den(own_factor, om_own, om_oth));
+    } else {
+        v = rub_responder(surplus, own_factor, om_oth, rub_den(other_factor, om_oth, om_own));
+    }
+    return status_only(CTO_OK, v, out, bad);
+}
+
+// Per-round log discount rho = c(rate) days / basis, c = log1p (annual effective) or
+// identity (continuous).  Factor = exp(-rho); 1 - factor = -expm1(-rho).
+inline double log_discount(double rate, double days, double basis, bool continuous) {
+    const double c = continuous ? rate : std::log1p(rate);
+    return c * (days / basis);
+}
+
+inline int round_factor(double rate, double days, double basis, bool continuous,
+                        double *out, int *bad) {
+    Check c;
+    c.nonneg(rate, 0);
+    c.nonneg(days, 1);
+    c.positive(basis, 2);
+    if (!c.ok()) return invalid(c, out, bad);
+    return status_only(CTO_OK, std::exp(-log_discount(rate, days, basis, continuous)), out,
+                       bad);
+}
+
+int share_from_rates(double own_rate, double other_rate, double days, double surplus,
+                     bool own_opens, double basis, bool continuous, double *out, int *bad);
+int limit_share(double own_rate, double other_rate, double surplus, double *out, int *bad);
+int breakdown_share(double own_factor, double other_factor, double p, double own_fallback,
+                    double other_fallback, double surplus, bool own_opens, double *out,
+                    int *bad);
+int outside_option_share(double own_factor, double other_factor, double own_outside,
+                         double other_outside, double surplus, bool own_opens, double *out,
+                         int *bad);
+int inside_option_share(double own_factor, double other_factor, double own_inside,
+                        double other_inside, double surplus, bool own_opens, double *out,
+                        int *bad);
+
+// The combined model (cto_solve).  Outside options: -infinity means absent.
+struct SolveIn {
+    double own_factor, other_factor, p, own_fallback, other_fallback, own_inside,
+        other_inside, own_outside, other_outside, surplus;
+    bool own_opens;
+};
+struct SolveOut {
+    double own_share, other_share, own_no_deal, other_no_deal;
+    int binding;  // CTO_BINDS_*
+    bool boundary;
+    bool rational;
+};
+// Validates (argument indices in the catalogue order of `solve`), then solves.
+int solve(const SolveIn &in, SolveOut *out, int *bad);
+
+int deadline_share(double own_factor, double other_factor, int64_t rounds, double own_fallback,
+                   double other_fallback, double surplus, bool own_opens, double *out,
+                   int *bad);
+int fixed_cost_share(double own_cost, double other_cost, double surplus, bool own_opens,
+                     double *out, int *bad);
+int delay_cost(double factor, double stake, double p, double fallback, double *out, int *bad);
+int first_mover_advantage(double own_factor, double other_factor, double surplus, double *out,
+                          int *bad);
+int nash_share(double own_fallback, double other_fallback, double own_weight, double surplus,
+               double own_curvature, double other_curvature, double *out, int *bad);
+int risk_averse_share(double own_factor, double other_factor, double own_curvature,
+                      double other_curvature, int utility, double p, double own_fallback,
+                      double other_fallback, double surplus, bool own_opens, double *out,
+                      int *bad);
+int group_share(double factor, int64_t parties, int64_t position, double surplus, double *out,
+                int *bad);
+int majority_share(double factor, int64_t parties, int64_t votes_needed, int role,
+                   double surplus, double *out, int *bad);
+int implied_factor(double observed_share, double other_factor, bool own_opens, double *out,
+                   int *bad);
+int implied_rate(double observed_share, double other_rate, double days, bool own_opens,
+                 double basis, bool continuous, double *out, int *bad);
+int share_sensitivity(double own_rate, double other_rate, double days, int wrt, double surplus,
+                      bool own_opens, double basis, bool continuous, double *out, int *bad);
+int screening_profit(double high_value, double low_value, double high_prob,
+                     double seller_factor, double buyer_factor, double *out, int *bad);
+
+}  // namespace cto::core
+
+#endif  // CTO_CORE_HPP

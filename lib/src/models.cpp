@@ -1,0 +1,774 @@
+// The bargaining models.  Formulas, sources and status tables are documented in the
+// public header; the comments here explain the numerical choices.
+#include <algorithm>
+#include <cmath>
+
+#include "core.hpp"
+#include "numerics.hpp"
+
+namespace cto::core {
+
+namespace {
+
+// log(d) accurately for d near 1 (1 - d is exact for d >= 1/2).
+double log_factor(double d) { return d > 0.5 ? std::log1p(-(1.0 - d)) : std::log(d); }
+
+// q^m for m >= 0 with q in [0, 1], as exp(m log q).
+double pow_count(double log_q, double m) {
+    if (m == 0.0) return 1.0;
+    return std::exp(m * log_q);
+}
+
+}  // namespace
+
+// ---------------------------------------------------------------------------
+// Alternating offers from rates
+// ---------------------------------------------------------------------------
+// Below this total per-round log discount, expm1 works in subnormal numbers and loses
+// digits; the share then equals its frequent-offer limit to far beyond double precision
+// (the correction is O(rho)).
+static constexpr double kTinyRho = 1e-150;
+
+int share_from_rates(double own_rate, double other_rate, double days, double surplus,
+                     bool own_opens, double basis, bool continuous, double *out, int *bad) {
+    Check c;
+    c.nonneg(own_rate, 0);
+    c.nonneg(other_rate, 1);
+    c.nonneg(days, 2);
+    c.real(surplus, 3);
+    c.positive(basis, 5);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    const double rho_own = log_discount(own_rate, days, basis, continuous);
+    const double rho_oth = log_discount(other_rate, days, basis, continuous);
+    const double sum = rho_own + rho_oth;
+    if (sum < kTinyRho) {
+        if (days == 0.0 || (own_rate == 0.0 && other_rate == 0.0))
+            return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+        const double k_own = continuous ? own_rate : std::log1p(own_rate);
+        const double k_oth = continuous ? other_rate : std::log1p(other_rate);
+        return finish(surplus * (k_oth / (k_own + k_oth)), out, bad, 3);
+    }
+    const double om_oth = -std::expm1(-rho_oth);  // 1 - other's factor
+    const double den = -std::expm1(-sum);         // 1 - product of the factors
+    const double v = own_opens ? surplus * om_oth / den
+                               : surplus * std::exp(-rho_own) * om_oth / den;
+    return finish(v, out, bad, 3);
+}
+
+int limit_share(double own_rate, double other_rate, double surplus, double *out, int *bad) {
+    Check c;
+    c.nonneg(own_rate, 0);
+    c.nonneg(other_rate, 1);
+    c.real(surplus, 2);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    if (own_rate == 0.0 && other_rate == 0.0)
+        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    double ro = own_rate, rt = other_rate;
+    if (!std::isfinite(ro + rt)) {  // both near DBL_MAX: scale to avoid overflow
+        ro *= 0.25;
+        rt *= 0.25;
+    }
+    return finish(surplus * (rt / (ro + rt)), out, bad, 2);
+}
+
+// ---------------------------------------------------------------------------
+// The combined model: breakdown risk, inside options, outside options
+// ---------------------------------------------------------------------------
+namespace {
+
+enum { kOverflow = -1 };
+
+// Solves with the opener called A.  Inputs are already validated.  Returns a CTO_*
+// status or kOverflow (finite inputs whose combination overflows).
+int solve_core(const SolveIn &in, SolveOut *o) {
+    const bool own_a = in.own_opens;
+    const double dA = own_a ? in.own_factor : in.other_factor;
+    const double dB = own_a ? in.other_factor : in.own_factor;
+    const double bA = own_a ? in.own_fallback : in.other_fallback;
+    const double bB = own_a ? in.other_fallback : in.own_fallback;
+    const double gA = own_a ? in.own_inside : in.other_inside;
+    const double gB = own_a ? in.other_inside : in.own_inside;
+    const double wA = own_a ? in.own_outside : in.other_outside;
+    const double wB = own_a ? in.other_outside : in.own_outside;
+    const double p = in.p, S = in.surplus, q1 = 1.0 - p;
+
+    // alpha_i = (1 - p) d_i is the chance-weighted factor; 1 - alpha_i is formed as
+    // p + (1 - p)(1 - d_i), a sum of non-negative terms.
+    const double omdA = 1.0 - dA, omdB = 1.0 - dB;
+    const double aA = q1 * dA, aB = q1 * dB;
+    const double omA = p + q1 * omdA, omB = p + q1 * omdB;
+
+    // No-deal value of waiting: d0 = (p b + (1-p)(1-d) g) / (1 - alpha), a weighted
+    // mean of the fallback and the inside option (exactly g when p = 0, b when p = 1).
+    auto wait_value = [&](double om, double omd, double b, double g) {
+        if (om == 0.0) return g;  // p = 0 and d = 1: the status quo forever
+        return (p / om) * b + (q1 * omd / om) * g;
+    };
+    const double d0A = wait_value(omA, omdA, bA, gA);
+    const double d0B = wait_value(omB, omdB, bB, gB);
+    const double ndA = std::max(wA, d0A), ndB = std::max(wB, d0B);
+    o->own_no_deal = own_a ? ndA : ndB;
+    o->other_no_deal = own_a ? ndB : ndA;
+    o->binding = CTO_BINDS_NONE;
+    o->boundary = false;
+    o->rational = false;
+
+    // The model on the surplus above (d0A, d0B): factors alpha, options W = w - d0.
+    const double Sp = S - d0A - d0B;
+    const double WA = wA - d0A, WB = wB - d0B;  // -inf stays -inf (absent)
+    if (!std::isfinite(Sp) || !std::isfinite(d0A) || !std::isfinite(d0B) ||
+        std::isnan(WA) || std::isnan(WB))
+        return kOverflow;
+    const bool hasA = WA > 0.0, hasB = WB > 0.0;  // only a positive W can bind
+    const double excess = Sp - (hasA ? WA : 0.0) - (hasB ? WB : 0.0);
+    if (!(excess > 0.0)) {
+        o->own_share = o->own_no_deal;
+        o->other_share = o->other_no_deal;
+        return CTO_E_NO_DEAL;
+    }
+    o->rational = true;
+    if (aA == 1.0 && aB == 1.0) {
+        o->own_share = o->other_share = kNaN;
+        return CTO_E_INDETERMINATE;
+    }
+
+    const double den = rub_den(aA, omA, omB);  // 1 - alpha_A alpha_B
+    const double UA = rub_opener(Sp, omB, den);  // A's proposer share, regime (i)
+    const double UB = rub_opener(Sp, omA, den);  // B's proposer share, regime (i)
+    double X, R;                                  // A's amount, B's amount (above d0)
+    int regime;
+    if ((!hasA || WA <= aA * UA) && (!hasB || WB <= aB * UB)) {
+        regime = 1;  // (i) neither option binds: Rubinstein on Sp
+        X = UA;
+        R = rub_responder(Sp, aB, omA, den);
+    } else if (hasB && WB > aB * UB && (!hasA || WA <= aA * (Sp - WB))) {
+        regime = 2;  // (ii) B's option binds: B as responder gets exactly W_B
+        X = Sp - WB;
+        R = WB;
+    } else if (hasA && WA > aA * UA && (!hasB || WB <= aB * (Sp - WA))) {
+        regime = 3;  // (iii) A's option binds: B proposes S - W_A, A offers aB of it
+        const double Y = Sp - WA;
+        X = omB * Sp + aB * WA;  // = Sp - aB (Sp - WA), without cancellation
+        R = aB * Y;
+    } else {
+        regime = 4;  // (iv) both bind
+        X = Sp - WB;
+        R = WB;
+    }
+    // Boundary: an option within 1e-12 x surplus of a threshold (REFERENCE s.12).
+    const double tol = 1e-12 * std::fabs(S);
+    bool boundary = false;
+    if (hasA && std::fabs(WA - aA * UA) <= tol) boundary = true;
+    if (hasB && std::fabs(WB - aB * UB) <= tol) boundary = true;
+    if (hasA && hasB &&
+        (std::fabs(WA - aA * (Sp - WB)) <= tol || std::fabs(WB - aB * (Sp - WA)) <= tol))
+        boundary = true;
+
+    const double shareA = d0A + X, shareB = d0B + R;
+    if (!std::isfinite(shareA) || !std::isfinite(shareB)) return kOverflow;
+    o->own_share = own_a ? shareA : shareB;
+    o->other_share = own_a ? shareB : shareA;
+    const bool a_binds = regime == 3 || regime == 4, b_binds = regime == 2 || regime == 4;
+    const bool own_binds = own_a ? a_binds : b_binds;
+    const bool oth_binds = own_a ? b_binds : a_binds;
+    o->binding = own_binds ? (oth_binds ? CTO_BINDS_BOTH : CTO_BINDS_OWN)
+                           : (oth_binds ? CTO_BINDS_OTHER : CTO_BINDS_NONE);
+    o->boundary = boundary;
+    return CTO_OK;
+}
+
+void nan_outcome(SolveOut *o) {
+    o->own_share = o->other_share = o->own_no_deal = o->other_no_deal = kNaN;
+    o->binding = CTO_BINDS_NONE;
+    o->boundary = false;
+    o->rational = false;
+}
+
+// Runs solve_core for a special-case function; `surplus_index` is blamed on overflow.
+int solve_own(const SolveIn &in, int surplus_index, double *out, int *bad) {
+    SolveOut o;
+    const int st = solve_core(in, &o);
+    if (st == kOverflow) return invalid_at(surplus_index, out, bad);
+    return status_only(st, o.own_share, out, bad);
+}
+
+}  // namespace
+
+int solve(const SolveIn &in, SolveOut *out, int *bad) {
+    Check c;
+    c.unit(in.own_factor, 0);
+    c.unit(in.other_factor, 1);
+    c.unit(in.p, 2);
+    c.real(in.own_fallback, 3);
+    c.real(in.other_fallback, 4);
+    c.real(in.own_inside, 5);
+    c.real(in.other_inside, 6);
+    c.optional(in.own_outside, 7);
+    c.optional(in.other_outside, 8);
+    c.real(in.surplus, 9);
+    if (bad) *bad = c.bad;
+    if (!c.ok()) {
+        nan_outcome(out);
+        return CTO_E_INVALID;
+    }
+    const int st = solve_core(in, out);
+    if (st == kOverflow) {
+        nan_outcome(out);
+        if (bad) *bad = 9;
+        return CTO_E_INVALID;
+    }
+    return st;
+}
+
+int breakdown_share(double own_factor, double other_factor, double p, double own_fallback,
+                    double other_fallback, double surplus, bool own_opens, double *out,
+                    int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.unit(p, 2);
+    c.real(own_fallback, 3);
+    c.real(other_fallback, 4);
+    c.real(surplus, 5);
+    if (!c.ok()) return invalid(c, out, bad);
+    const SolveIn in{own_factor, other_factor, p,     own_fallback, other_fallback, 0.0,
+                     0.0,        -kInf,        -kInf, surplus,      own_opens};
+    return solve_own(in, 5, out, bad);
+}
+
+int outside_option_share(double own_factor, double other_factor, double own_outside,
+                         double other_outside, double surplus, bool own_opens, double *out,
+                         int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.real(own_outside, 2);
+    c.real(other_outside, 3);
+    c.real(surplus, 4);
+    if (!c.ok()) return invalid(c, out, bad);
+    const SolveIn in{own_factor, other_factor, 0.0,         0.0,           0.0,      0.0,
+                     0.0,        own_outside,  other_outside, surplus, own_opens};
+    return solve_own(in, 4, out, bad);
+}
+
+int inside_option_share(double own_factor, double other_factor, double own_inside,
+                        double other_inside, double surplus, bool own_opens, double *out,
+                        int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.real(own_inside, 2);
+    c.real(other_inside, 3);
+    c.real(surplus, 4);
+    if (!c.ok()) return invalid(c, out, bad);
+    const SolveIn in{own_factor, other_factor, 0.0,   0.0,     0.0,      own_inside,
+                     other_inside, -kInf,      -kInf, surplus, own_opens};
+    return solve_own(in, 4, out, bad);
+}
+
+// ---------------------------------------------------------------------------
+// Deadline (finite horizon)
+// ---------------------------------------------------------------------------
+// Backward induction from the last round, exact; once agreement holds with both values
+// non-negative, every earlier round agrees too (the proposer can always pay the
+// responder's discounted value and keep more than its own), and the rest is the
+// two-step linear map F -> S (1 - d_resp) + q F, taken in one step with q^m.
+static constexpr int64_t kDeadlineSteps = 100000;
+
+int deadline_share(double own_factor, double other_factor, int64_t rounds, double own_fallback,
+                   double other_fallback, double surplus, bool own_opens, double *out,
+                   int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    if (rounds < 0) c.fail(2);
+    c.real(own_fallback, 3);
+    c.real(other_fallback, 4);
+    c.real(surplus, 5);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (rounds == 0) return status_only(CTO_E_NO_DEAL, own_fallback, out, bad);
+
+    const double S = surplus;
+    const double d[2] = {own_opens ? own_factor : other_factor,
+                         own_opens ? other_factor : own_factor};  // [A, B], A opens
+    const double b[2] = {own_opens ? own_fallback : other_fallback,
+                         own_opens ? other_fallback : own_fallback};
+    const int own = own_opens ? 0 : 1;
+    auto proposer = [](int64_t t) { return (t % 2 == 1) ? 0 : 1; };  // A in odd rounds
+
+    // Round T.
+    int64_t t = rounds;
+    double v[2];  // values of A and B at the date of round t
+    int P = proposer(t), R = 1 - P;
+    bool ever;    // agreement somewhere on the path from round t
+    bool agreed;  // (weak) agreement in round t
+    if (S - b[R] > b[P]) {
+        v[P] = S - b[R];
+        v[R] = b[R];
+        ever = agreed = true;
+    } else {
+        v[P] = b[P];
+        v[R] = b[R];
+        ever = agreed = false;
+    }
+    int64_t steps = 0;
+    while (t > 1) {
+        if (agreed && v[0] >= 0.0 && v[1] >= 0.0 && S >= 0.0) break;  // absorbing
+        if (!agreed && !ever && v[0] >= 0.0 && v[1] >= 0.0 && S <= 0.0) {
+            // Nothing to gain in any earlier round: the deadline payoffs, discounted.
+            const double m = static_cast<double>(t - 1);
+            const double val = v[own] * pow_count(log_factor(d[own]), m);
+            if (!std::isfinite(val)) return invalid_at(5, out, bad);
+            return status_only(CTO_E_NO_DEAL, val, out, bad);
+        }
+        if (++steps > kDeadlineSteps) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
+        --t;
+        P = proposer(t);
+        R = 1 - P;
+        const double cR = d[R] * v[R];  // responder's value of rejecting
+        const double cP = d[P] * v[P];  // proposer's value of a rejected offer
+        const bool strict = S - cR > cP;
+        agreed = S - cR >= cP;
+        v[P] = agreed ? S - cR : cP;
+        v[R] = cR;
+        ever = ever || strict;
+        if (!std::isfinite(v[0]) || !std::isfinite(v[1])) return invalid_at(5, out, bad);
+    }
+    if (t == 1) {
+        const int st = ever ? CTO_OK : CTO_E_NO_DEAL;
+        if (!std::isfinite(v[own])) return invalid_at(5, out, bad);
+        return status_only(st, v[own], out, bad);
+    }
+
+    // Absorbing phase from round t >= 2: F_t = v[P_t], F_{t-1} = S - d_{P_t} F_t.
+    const double Ft = v[proposer(t)];
+    const double Ft1 = S - d[proposer(t)] * Ft;
+    const double omA = 1.0 - d[0], omB = 1.0 - d[1];
+    const double one_minus_q = rub_den(d[0], omA, omB);
+    const double log_q = std::log1p(-one_minus_q);
+    // F at round r (r >= 1) from F at round s >= r with the same parity (proposer X):
+    // F_r = F*_X + q^((s - r)/2) (F_s - F*_X),  F*_X = S (1 - d_Y)/(1 - q).
+    auto back = [&](int64_t s, double Fs, int64_t r) {
+        const double m = static_cast<double>((s - r) / 2);
+        if (one_minus_q == 0.0) return Fs;  // both factors 1: the values just alternate
+        const int X = proposer(r);
+        const double star = rub_opener(S, X == 0 ? omB : omA, one_minus_q);
+        return star + pow_count(log_q, m) * (Fs - star);
+    };
+    const int64_t t_odd = (t % 2 == 1) ? t : t - 1;
+    const int64_t t_even = (t % 2 == 0) ? t : t - 1;
+    const double F1 = back(t_odd, t_odd == t ? Ft : Ft1, 1);  // A proposing in round 1
+    const double F2 = back(t_even, t_even == t ? Ft : Ft1, 2);  // B proposing in round 2
+    const double vA = F1, vB = d[1] * F2;
+    // Strict agreement in round 1 (a gain over waiting), when none was seen later.
+    if (!ever) ever = F1 > d[0] * (S - F2);
+    const double val = own == 0 ? vA : vB;
+    if (!std::isfinite(val)) return invalid_at(5, out, bad);
+    return status_only(ever ? CTO_OK : CTO_E_NO_DEAL, val, out, bad);
+}
+
+// ---------------------------------------------------------------------------
+// Fixed costs, delay, first mover
+// ---------------------------------------------------------------------------
+int fixed_cost_share(double own_cost, double other_cost, double surplus, bool own_opens,
+                     double *out, int *bad) {
+    Check c;
+    c.nonneg(own_cost, 0);
+    c.nonneg(other_cost, 1);
+    c.real(surplus, 2);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double S = surplus;
+    if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    if (own_cost == other_cost && own_cost < S)
+        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    // Proposer X with cost cx against responder cost cy (REFERENCE s.2, generalised):
+    // cx < cy -> S;  cx > cy -> min(cy, S);  equal costs >= S -> S.
+    auto proposer_share = [S](double cx, double cy) { return cx > cy ? std::min(cy, S) : S; };
+    const double v = own_opens ? proposer_share(own_cost, other_cost)
+                               : S - proposer_share(other_cost, own_cost);
+    return status_only(CTO_OK, v, out, bad);
+}
+
+int delay_cost(double factor, double stake, double p, double fallback, double *out, int *bad) {
+    Check c;
+    c.unit(factor, 0);
+    c.real(stake, 1);
+    c.unit(p, 2);
+    c.real(fallback, 3);
+    if (!c.ok()) return invalid(c, out, bad);
+    // stake - ((1-p) d stake + p fallback) = p (stake - fallback) + (1-p)(1-d) stake
+    const double v = p * (stake - fallback) + (1.0 - p) * (1.0 - factor) * stake;
+    return finish(v, out, bad, 1);
+}
+
+int first_mover_advantage(double own_factor, double other_factor, double surplus, double *out,
+                          int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.real(surplus, 2);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    if (own_factor == 1.0 && other_factor == 1.0)
+        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
+    const double v = surplus * om_own * om_oth / rub_den(own_factor, om_own, om_oth);
+    return status_only(CTO_OK, v, out, bad);
+}
+
+// ---------------------------------------------------------------------------
+// Nash bargaining solution
+// ---------------------------------------------------------------------------
+int nash_share(double own_fallback, double other_fallback, double own_weight, double surplus,
+               double own_curvature, double other_curvature, double *out, int *bad) {
+    Check c;
+    c.real(own_fallback, 0);
+    c.real(other_fallback, 1);
+    c.unit(own_weight, 2);
+    c.real(surplus, 3);
+    c.positive(own_curvature, 4);
+    c.positive(other_curvature, 5);
+    if (own_curvature > 1.0) c.fail(4);
+    if (other_curvature > 1.0) c.fail(5);
+    const bool curved = own_curvature < 1.0 || other_curvature < 1.0;
+    if (curved && own_fallback < 0.0) c.fail(0);
+    if (curved && other_fallback < 0.0) c.fail(1);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double bo = own_fallback, bt = other_fallback, tau = own_weight;
+    const double Sp = surplus - bo - bt;
+    if (!std::isfinite(Sp)) return invalid_at(3, out, bad);
+    if (!(Sp > 0.0)) return status_only(CTO_E_NO_DEAL, bo, out, bad);
+    if (!curved || tau == 0.0 || tau == 1.0) return finish(bo + tau * Sp, out, bad, 3);
+    const double ao = own_curvature, at = other_curvature;
+    if (bo == 0.0 && bt == 0.0) {  // closed form, REFERENCE s.7 (CRRA, d = 0)
+        const double wo = ao * tau, wt = at * (1.0 - tau);
+        return finish(surplus * (wo / (wo + wt)), out, bad, 3);
+    }
+    // First-order condition in t, x = bo + t Sp, y = bt + (1 - t) Sp:
+    //   h(t) = tau ao y E_t - (1 - tau) at x E_o = 0,  E = 1 - (b/x)^a, formed as
+    //   -expm1(-a log1p(t Sp / b)) so that it is accurate for x near b.
+    // h is strictly decreasing, positive at t = 0 and negative at t = 1.
+    auto E = [](double a, double b, double gain) {
+        return b == 0.0 ? 1.0 : -std::expm1(-a * std::log1p(gain / b));
+    };
+    auto h = [&](double t) {
+        const double x = bo + t * Sp, y = bt + (1.0 - t) * Sp;
+        return tau * ao * y * E(at, bt, (1.0 - t) * Sp) - (1.0 - tau) * at * x * E(ao, bo, t * Sp);
+    };
+    const num::Root r = num::brent(h, 0.0, 1.0, h(0.0), h(1.0));
+    if (!r.converged) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
+    return finish(bo + r.x * Sp, out, bad, 3);
+}
+
+// ---------------------------------------------------------------------------
+// Alternating offers with risk-averse parties
+// ---------------------------------------------------------------------------
+namespace {
+
+// One party's side of the stationary conditions.  r(v) is the money value of
+// rejecting when the party's own next-round proposer share is v:
+//   u(r) = p u(b) + alpha u(v);   f(v) = v - r(v)   (its first-mover gap).
+// f is computed directly, without forming v - r, so it stays accurate when it is
+// small (factors near 1, rare breakdown).
+struct Party {
+    int utility;
+    double a;      // curvature: power exponent, or CARA coefficient k
+    double b;      // fallback on breakdown
+    double p;      // breakdown probability
+    double alpha;  // (1 - p) d
+    double om;     // 1 - alpha
+    double phi;    // (1 - p)(1 - d)
+
+    double f(double v) const {
+        if (utility == CTO_UTILITY_POWER) {
+            if (v <= 0.0) return b > 0.0 ? -std::pow(p, 1.0 / a) * b : 0.0;
+            // c = 1 - alpha - p (b/v)^a = p (1 - (b/v)^a) + phi;  f = -v expm1(log1p(-c)/a)
+            const double cc = b > 0.0 ? p * -std::expm1(a * std::log(b / v)) + phi : om;
+            return -v * std::expm1(std::log1p(-cc) / a);
+        }
+        const double k = a, e1 = k * (v - b), e2 = k * v;
+        if (std::max(e1, e2) < 700.0) {
+            const double w = p * std::expm1(e1) + phi * std::expm1(e2);
+            return std::log1p(w) / k;
+        }
+        const double l = num::log_sum_exp3(p > 0.0 ? std::log(p) + e1 : -kInf,
+                                           phi > 0.0 ? std::log(phi) + e2 : -kInf,
+                                           alpha > 0.0 ? std::log(alpha) : -kInf);
+        return l / k;
+    }
+    // Money value of rejecting when the next-round proposer share is v.
+    double r(double v) const { return v - f(v); }
+    // Certainty equivalent of waiting for breakdown for ever: u^-1(p u(b) / (1 - alpha)).
+    double no_deal() const {
+        if (p == 0.0) return 0.0;
+        const double w = p / om;
+        if (utility == CTO_UTILITY_POWER) return b * std::pow(w, 1.0 / a);
+        return -std::log1p(w * std::expm1(-a * b)) / a;
+    }
+    // r(v) as v -> +infinity (CARA only: utilities are bounded above by 1/k).
+    double r_at_infinity() const { return -std::log1p(p * std::expm1(-a * b) - alpha) / a; }
+};
+
+}  // namespace
+
+int risk_averse_share(double own_factor, double other_factor, double own_curvature,
+                      double other_curvature, int utility, double p, double own_fallback,
+                      double other_fallback, double surplus, bool own_opens, double *out,
+                      int *bad) {
+    Check c;
+    c.unit(own_factor, 0);
+    c.unit(other_factor, 1);
+    c.positive(own_curvature, 2);
+    c.positive(other_curvature, 3);
+    if (utility != CTO_UTILITY_POWER && utility != CTO_UTILITY_EXPONENTIAL) c.fail(4);
+    c.unit(p, 5);
+    c.real(own_fallback, 6);
+    c.real(other_fallback, 7);
+    c.real(surplus, 8);
+    if (utility == CTO_UTILITY_POWER) {
+        if (own_curvature > 1.0) c.fail(2);
+        if (other_curvature > 1.0) c.fail(3);
+        if (own_fallback < 0.0) c.fail(6);
+        if (other_fallback < 0.0) c.fail(7);
+    }
+    if (!c.ok()) return invalid(c, out, bad);
+
+    const double S = surplus;
+    auto party = [&](double d, double a, double b) {
+        const double q1 = 1.0 - p;
+        return Party{utility, a, b, p, q1 * d, p + q1 * (1.0 - d), q1 * (1.0 - d)};
+    };
+    const Party A = own_opens ? party(own_factor, own_curvature, own_fallback)
+                              : party(other_factor, other_curvature, other_fallback);
+    const Party B = own_opens ? party(other_factor, other_curvature, other_fallback)
+                              : party(own_factor, own_curvature, own_fallback);
+    const double ndA = A.no_deal(), ndB = B.no_deal();
+    if (!std::isfinite(ndA + ndB)) return invalid_at(8, out, bad);
+    if (!(S > ndA + ndB))
+        return status_only(CTO_E_NO_DEAL, own_opens ? ndA : ndB, out, bad);
+    if (A.alpha == 1.0 && B.alpha == 1.0)
+        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    // One infinitely patient party with no breakdown risk takes everything.
+    if (A.alpha == 1.0) return status_only(CTO_OK, own_opens ? S : 0.0, out, bad);
+    if (B.alpha == 1.0) return status_only(CTO_OK, own_opens ? 0.0 : S, out, bad);
+
+    if (utility == CTO_UTILITY_POWER && p == 0.0) {
+        // Closed form (REFERENCE s.7): Rubinstein with factors d^(1/a), via expm1.
+        const double lA = log_factor(A.alpha) / A.a, lB = log_factor(B.alpha) / B.a;
+        const double den = -std::expm1(lA + lB);
+        const double v = own_opens ? S * -std::expm1(lB) / den
+                                   : S * std::exp(lB) * -std::expm1(lA) / den;
+        return finish(v, out, bad, 8);
+    }
+
+    // x: A's proposer share.  y(x) = S - r_A(x);  H(x) = f_B(y(x)) - f_A(x) = T(x) - x,
+    // strictly decreasing, zero at the equilibrium.  It is a difference of two small,
+    // accurately computed gaps, so the root is well conditioned even with factors
+    // within 1e-9 of 1.
+    const bool power = utility == CTO_UTILITY_POWER;
+    auto y_of = [&](double x) {
+        const double y = S - x + A.f(x);
+        return power ? std::max(y, 0.0) : y;
+    };
+    auto H = [&](double x) { return B.f(y_of(x)) - A.f(x); };
+    double lo, hi;
+    if (power) {
+        lo = 0.0;
+        hi = S;
+    } else {
+        // T maps the line into [S - r_B(inf), S - r_B(S - r_A(inf))]; widen a little
+        // so that rounding cannot put the root outside.
+        const double L = S - B.r_at_infinity();
+        const double U = S - B.r(S - A.r_at_infinity());
+        const double m = 1e-9 * (std::fabs(L) + std::fabs(U) + std::fabs(S));
+        lo = std::min(L, U) - m;
+        hi = std::max(L, U) + m;
+        if (!std::isfinite(lo) || !std::isfinite(hi)) return invalid_at(8, out, bad);
+    }
+    const num::Root root = num::brent(H, lo, hi, H(lo), H(hi));
+    if (!root.converged) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
+    const double x = root.x;
+    const double v = own_opens ? x : B.r(y_of(x));
+    return finish(v, out, bad, 8);
+}
+
+// ---------------------------------------------------------------------------
+// More than two parties
+// ---------------------------------------------------------------------------
+int group_share(double factor, int64_t parties, int64_t position, double surplus, double *out,
+                int *bad) {
+    Check c;
+    c.unit(factor, 0);
+    if (parties < 1) c.fail(1);
+    if (position < 0 || position >= parties) c.fail(2);
+    c.real(surplus, 3);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double S = surplus;
+    if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    if (parties == 1) return status_only(CTO_OK, S, out, bad);
+    if (factor == 1.0) return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    if (factor == 0.0) return status_only(CTO_OK, position == 0 ? S : 0.0, out, bad);
+    // S d^k (1 - d) / (1 - d^n), with d^k = exp(k log d) and 1 - d^n = -expm1(n log d).
+    const double ld = log_factor(factor);
+    const double den = -std::expm1(static_cast<double>(parties) * ld);
+    const double num = (1.0 - factor) * std::exp(static_cast<double>(position) * ld);
+    return status_only(CTO_OK, S * num / den, out, bad);
+}
+
+int majority_share(double factor, int64_t parties, int64_t votes_needed, int role,
+                   double surplus, double *out, int *bad) {
+    Check c;
+    c.unit(factor, 0);
+    if (parties < 1) c.fail(1);
+    if (votes_needed < 0) c.fail(2);
+    if (role != CTO_ROLE_PROPOSER && role != CTO_ROLE_PARTNER) c.fail(3);
+    c.real(surplus, 4);
+    if (!c.ok()) return invalid(c, out, bad);
+    const int64_t n = parties;
+    const int64_t q = votes_needed == 0 ? n / 2 + 1 : votes_needed;
+    if (q > n) return invalid_at(2, out, bad);
+    if (role == CTO_ROLE_PARTNER && q < 2) return invalid_at(3, out, bad);  // no partners
+    const double S = surplus;
+    if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    const double nd = static_cast<double>(n);
+    if (role == CTO_ROLE_PARTNER) return status_only(CTO_OK, S * factor / nd, out, bad);
+    // S (1 - d (q-1)/n) = S ((n - q + 1) + (1 - d)(q - 1)) / n: no cancellation near d = 1.
+    const double v = S * (static_cast<double>(n - q + 1) +
+                          (1.0 - factor) * static_cast<double>(q - 1)) / nd;
+    return status_only(CTO_OK, v, out, bad);
+}
+
+// ---------------------------------------------------------------------------
+// Inverse problems and sensitivities
+// ---------------------------------------------------------------------------
+namespace {
+// 1 - d_own for an observed share s, from the Rubinstein share (surplus 1):
+//   own opens:   (1 - s)(1 - d_oth) / (s d_oth)
+//   other opens: (1 - s)(1 - d_oth) / (s + (1 - s)(1 - d_oth))
+// written with om_oth = 1 - d_oth and, for own opens, g = (1 - d_oth)/d_oth.
+double implied_complement(double s, double om_oth, double g, bool own_opens) {
+    const double oms = 1.0 - s;
+    return own_opens ? oms * g / s : oms * om_oth / (s + oms * om_oth);
+}
+}  // namespace
+
+int implied_factor(double observed_share, double other_factor, bool own_opens, double *out,
+                   int *bad) {
+    Check c;
+    c.unit(observed_share, 0);
+    c.unit(other_factor, 1);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double s = observed_share, dt = other_factor, om_t = 1.0 - dt;
+    // Cases where the share does not depend on own's factor.
+    if (own_opens && dt == 0.0)  // own as opener always takes everything
+        return s == 1.0 ? status_only(CTO_E_INDETERMINATE, kNaN, out, bad)
+                        : invalid_at(0, out, bad);
+    if (dt == 1.0)  // the infinitely patient other takes everything (own factor < 1)
+        return s == 0.0 ? status_only(CTO_E_INDETERMINATE, kNaN, out, bad)
+                        : invalid_at(0, out, bad);
+    if (own_opens && s < om_t) return invalid_at(0, out, bad);  // below the d_own = 0 share
+    const double m = implied_complement(s, om_t, om_t / dt, own_opens);  // 1 - d_own
+    if (!(m >= 0.0 && m <= 1.0)) return invalid_at(0, out, bad);
+    double d;
+    if (m <= 0.5) {
+        d = 1.0 - m;
+    } else if (own_opens) {
+        d = (s - om_t) / (s * dt);
+    } else {
+        d = s / (s + (1.0 - s) * om_t);
+    }
+    return status_only(CTO_OK, std::min(1.0, std::max(0.0, d)), out, bad);
+}
+
+int implied_rate(double observed_share, double other_rate, double days, bool own_opens,
+                 double basis, bool continuous, double *out, int *bad) {
+    Check c;
+    c.unit(observed_share, 0);
+    c.nonneg(other_rate, 1);
+    c.nonneg(days, 2);
+    c.positive(basis, 4);
+    if (!c.ok()) return invalid(c, out, bad);
+    if (days == 0.0) return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    const double s = observed_share;
+    const double rho_t = log_discount(other_rate, days, basis, continuous);
+    if (rho_t == 0.0)  // other infinitely patient: own gets 0 whatever its rate
+        return s == 0.0 ? status_only(CTO_E_INDETERMINATE, kNaN, out, bad)
+                        : invalid_at(0, out, bad);
+    if (own_opens && rho_t == kInf)  // other's factor 0: the opener takes everything
+        return s == 1.0 ? status_only(CTO_E_INDETERMINATE, kNaN, out, bad)
+                        : invalid_at(0, out, bad);
+    // 1 - d_own = m; with (1 - d_oth)/d_oth = expm1(rho_t) and 1 - d_oth = -expm1(-rho_t).
+    const double m = implied_complement(s, -std::expm1(-rho_t), std::expm1(rho_t), own_opens);
+    if (!(m >= 0.0 && m < 1.0)) return invalid_at(0, out, bad);  // needs a finite rate
+    const double rho_own = -std::log1p(-m);
+    const double per_year = rho_own * (basis / days);
+    const double rate = continuous ? per_year : std::expm1(per_year);
+    if (!std::isfinite(rate)) return invalid_at(0, out, bad);
+    return status_only(CTO_OK, rate, out, bad);
+}
+
+int share_sensitivity(double own_rate, double other_rate, double days, int wrt, double surplus,
+                      bool own_opens, double basis, bool continuous, double *out, int *bad) {
+    Check c;
+    c.nonneg(own_rate, 0);
+    c.nonneg(other_rate, 1);
+    c.nonneg(days, 2);
+    if (wrt != CTO_WRT_OWN && wrt != CTO_WRT_OTHER) c.fail(3);
+    c.real(surplus, 4);
+    c.positive(basis, 6);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double S = surplus;
+    if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
+    const double rate = wrt == CTO_WRT_OWN ? own_rate : other_rate;
+    const double dc = continuous ? 1.0 : 1.0 / (1.0 + rate);  // d c(R) / dR
+    const double rho_o = log_discount(own_rate, days, basis, continuous);
+    const double rho_t = log_discount(other_rate, days, basis, continuous);
+    const double sum = rho_o + rho_t;
+    double v;
+    if (sum < kTinyRho) {
+        if (days == 0.0 || (own_rate == 0.0 && other_rate == 0.0))
+            return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+        // Frequent-offer limit S k_t/(k_o + k_t): derivative in k, times dk/dR.
+        const double ko = continuous ? own_rate : std::log1p(own_rate);
+        const double kt = continuous ? other_rate : std::log1p(other_rate);
+        const double ks = ko + kt;
+        v = (wrt == CTO_WRT_OWN ? -S * (kt / ks) / ks : S * (ko / ks) / ks) * dc;
+    } else {
+        const double a = -std::expm1(-rho_o), bb = -std::expm1(-rho_t);
+        const double D = -std::expm1(-sum);
+        const double E = own_opens ? (wrt == CTO_WRT_OWN ? std::exp(-sum) : std::exp(-rho_t))
+                                   : (wrt == CTO_WRT_OWN ? std::exp(-rho_o) : std::exp(-sum));
+        const double dshare = wrt == CTO_WRT_OWN ? -S * bb / D * E / D : S * a / D * E / D;
+        v = dshare * (days / basis) * dc;
+    }
+    return finish(v, out, bad, 4);
+}
+
+// ---------------------------------------------------------------------------
+// Two-period screening (Fudenberg & Tirole 1983 setting)
+// ---------------------------------------------------------------------------
+int screening_profit(double high_value, double low_value, double high_prob,
+                     double seller_factor, double buyer_factor, double *out, int *bad) {
+    Check c;
+    c.positive(high_value, 0);
+    c.positive(low_value, 1);
+    c.unit(high_prob, 2);
+    c.unit(seller_factor, 3);
+    c.unit(buyer_factor, 4);
+    if (c.ok() && low_value > high_value) c.fail(1);
+    if (!c.ok()) return invalid(c, out, bad);
+    const double vH = high_value, vL = low_value, q = high_prob;
+    const double ds = seller_factor, db = buyer_factor;
+    const double pool = vL;
+    const double screen = q * ((1.0 - db) * vH + db * vL) + (1.0 - q) * ds * vL;
+    double best = std::max(pool, screen);
+    if (q * vH > vL) {  // skim: only when q exceeds v_L / v_H
+        const double skim = vH * ((q * vH - vL) + ds * (1.0 - q) * vL) / (vH - vL);
+        best = std::max(best, skim);
+    }
+    return finish(best, out, bad, 0);
+}
+
+}  // namespace cto::core
