@@ -404,19 +404,42 @@ void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const
              const ptrdiff_t *os, signed char *st, ptrdiff_t ss, Tally &t) {
     double a[NIN];
     double o[NOUT];
+    const char *ap[NIN];
+    char *op[NOUT];
+    ptrdiff_t astep[NIN], ostep[NOUT];
+    for (int j = 0; j < NIN; ++j) {
+        ap[j] = args[j];
+        astep[j] = as[j];
+    }
+    for (int k = 0; k < NOUT; ++k) {
+        op[k] = outs[k];
+        ostep[k] = os[k];
+    }
+    size_t ok = 0, first_ok = 0;  // the common case is counted in registers
     for (size_t i = 0; i < n; ++i) {
-        const ptrdiff_t ii = static_cast<ptrdiff_t>(i);
-        for (int j = 0; j < NIN; ++j) std::memcpy(&a[j], args[j] + ii * as[j], sizeof(double));
+        for (int j = 0; j < NIN; ++j) {
+            std::memcpy(&a[j], ap[j], sizeof(double));
+            ap[j] += astep[j];
+        }
         int bad = -1;
         int s = F(a, o, &bad);
+        for (int k = 0; k < NOUT; ++k) {
+            std::memcpy(op[k], &o[k], sizeof(double));
+            op[k] += ostep[k];
+        }
+        if (st) st[static_cast<ptrdiff_t>(i) * ss] = static_cast<signed char>(s);
+        if (s == CTO_OK) {
+            if (ok++ == 0) first_ok = i;
+            continue;
+        }
         if (s < 0 || s >= CTO_REPORT_SLOTS) s = CTO_E_INTERNAL;
-        for (int k = 0; k < NOUT; ++k) std::memcpy(outs[k] + ii * os[k], &o[k], sizeof(double));
-        if (st) st[ii * ss] = static_cast<signed char>(s);
         if (t.count[s]++ == 0) {
             t.first[s] = i;
             if (s == CTO_E_INVALID) t.first_bad = bad;
         }
     }
+    if (ok > 0 && t.count[CTO_OK] == 0) t.first[CTO_OK] = first_ok;
+    t.count[CTO_OK] += ok;
 }
 
 struct Row {
