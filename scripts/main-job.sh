@@ -1,0 +1,18 @@
+#!/usr/bin/env bash
+# The main job on a fresh Debian 12 machine (or again on a used one): install what is
+# missing, build, and produce the deal comparisons with a report in out/.
+source "$(dirname "${BASH_SOURCE[0]}")/lib.sh"
+ensure_apt "${CTO_APT_PACKAGES[@]}"
+OUT="${CTO_OUT:-$CTO_ROOT/out}"
+mkdir -p "$OUT"
+say "building the core and the example programs"
+build_core "$CTO_BUILD/main" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_EXAMPLES=ON
+say "deal comparison from the C interface (fictional scenario)"
+"$CTO_BUILD/main/deal_comparison" | tee "$OUT/deal_comparison.txt"
+# The sample deal sheets, recalculated headless in LibreOffice Calc, when that part of the
+# project is present (scripts/sheets-job.sh).
+if [ -x "$CTO_ROOT/scripts/sheets-job.sh" ]; then
+  ensure_venv
+  bash "$CTO_ROOT/scripts/sheets-job.sh" "$OUT"
+fi
+say "done: results in $OUT"
