@@ -7,3 +7,5 @@ build_core "$CTO_BUILD/asan" -DCTO_BUILD_TESTS=ON -DCTO_SANITIZE=address,undefin
   -DCMAKE_BUILD_TYPE=RelWithDebInfo
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
   ctest --test-dir "$CTO_BUILD/asan" --output-on-failure -j "$(nproc)"
+# Install rules: a consumer builds through find_package(counteroffer) and pkg-config.
+bash "$CTO_ROOT/tests/install/check-install.sh"
