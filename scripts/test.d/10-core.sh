@@ -9,3 +9,9 @@ ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:ha
   ctest --test-dir "$CTO_BUILD/asan" --output-on-failure -j "$(nproc)"
 # Install rules: a consumer builds through find_package(counteroffer) and pkg-config.
 bash "$CTO_ROOT/tests/install/check-install.sh"
+# ThreadSanitizer: every function from two threads at once, compared with a serial run.
+build_core "$CTO_BUILD/tsan" -DCTO_BUILD_TESTS=ON -DCTO_BUILD_EXAMPLES=OFF -DCTO_SANITIZE=thread \
+  -DCMAKE_BUILD_TYPE=RelWithDebInfo
+TSAN_OPTIONS=halt_on_error=1 "$CTO_BUILD/tsan/tests/cpp/cto_tests" '[threads]'
+# ABI stability against the committed baseline (abidiff).
+bash "$CTO_ROOT/tests/abi/check-abi.sh"
