@@ -1,0 +1,119 @@
+"""counteroffer: how a jointly created surplus is split in a negotiation.
+
+Every function of the project's catalogue, computed by the counteroffer C library from
+published alternating-offers bargaining models (Rubinstein 1982; Binmore, Rubinstein &
+Wolinsky 1986; Muthoo 1999; Baron & Ferejohn 1989; Fudenberg & Tirole 1983).
+
+Conventions
+    "own" is the party whose result is returned, "other" the counterparty;
+    ``own_opens`` (default True) means own makes the first offer.  Money arguments are
+    in one unit of your choice (``surplus`` defaults to 1, so results are fractions).
+    Patience is a per-round discount factor in [0, 1], or an annual rate plus the days
+    between offers.
+
+Arrays
+    Every function is a NumPy ufunc underneath: scalars give a Python float, any mix of
+    scalars, lists and arrays broadcasts, ``out=`` works, results are float64, a pandas
+    Series gives a Series with its index, dask arrays give lazy dask arrays.  The loops
+    run in C with the GIL released.
+
+Errors
+    See ``errstate``: invalid input raises ``ValueError`` naming the argument and its
+    value; "no deal" returns own's no-deal payoff with a ``NoDealWarning``;
+    indeterminate and non-converged results are NaN with a warning.
+
+Functions
+{functions}
+
+Command line: ``counteroffer --function share deals.csv -o results.csv``.
+
+Results are model estimates under the stated assumptions, not financial, legal or tax
+advice.
+"""
+
+from __future__ import annotations
+
+from typing import Any, Dict, List
+
+from . import _core
+from ._errors import (
+    CounterofferError,
+    CounterofferWarning,
+    IndeterminateError,
+    IndeterminateWarning,
+    InternalError,
+    InternalWarning,
+    InvalidArgumentError,
+    InvalidArgumentWarning,
+    NoConvergenceError,
+    NoConvergenceWarning,
+    NoDealError,
+    NoDealWarning,
+    errstate,
+    geterr,
+    seterr,
+)
+from ._api import ArrayResult, load_specs, make_function
+from ._docs import build_doc
+
+__version__: str = _core.version()
+if __version__ != _core.HEADER_VERSION:  # the sqlite-style start-up check
+    raise ImportError(
+        f"counteroffer: library version {__version__} differs from the header "
+        f"version {_core.HEADER_VERSION} the module was built with"
+    )
+
+for _cls in (CounterofferError, CounterofferWarning, IndeterminateError, IndeterminateWarning,
+             InternalError, InternalWarning, InvalidArgumentError, InvalidArgumentWarning,
+             NoConvergenceError, NoConvergenceWarning, NoDealError, NoDealWarning):
+    _cls.__module__ = __name__
+
+#: The library's function table, one FunctionSpec per catalogue row, in order.
+catalogue = tuple(load_specs())
+_functions: Dict[str, Any] = {}
+for _spec in catalogue:
+    _fn = make_function(_spec, build_doc(_spec))
+    _functions[_spec.name] = _fn
+    globals()[_spec.name] = _fn
+    _result = getattr(_fn, "Result", None)
+    if _result is not None:
+        globals()[_result.__name__] = _result
+
+__doc__ = (__doc__ or "").format(
+    functions="\n".join(f"    {s.name:<22} {s.summary}" for s in catalogue)
+)
+
+__all__: List[str] = [s.name for s in catalogue] + [
+    "ArrayResult",
+    "CounterofferError",
+    "CounterofferWarning",
+    "IndeterminateError",
+    "IndeterminateWarning",
+    "InternalError",
+    "InternalWarning",
+    "InvalidArgumentError",
+    "InvalidArgumentWarning",
+    "NoConvergenceError",
+    "NoConvergenceWarning",
+    "NoDealError",
+    "NoDealWarning",
+    "catalogue",
+    "errstate",
+    "geterr",
+    "seterr",
+    "status_name",
+    "status_message",
+] + sorted(r.__name__ for r in (getattr(f, "Result", None) for f in _functions.values()) if r)
+
+
+def status_name(status: int) -> str:
+    """The library's short name of a status code ("ok", "invalid", "no_deal", ...)."""
+    return _core.status_name(status)
+
+
+def status_message(status: int) -> str:
+    """The library's one-sentence meaning of a status code for the output."""
+    return _core.status_message(status)
+
+
+del _cls, _spec, _fn, _result
