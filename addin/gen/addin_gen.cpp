@@ -1,0 +1,299 @@
+// addin_gen: writes the Calc add-in's generated sources from the library's catalogue
+// table (cto_function_count / cto_function_at), so a new catalogue row needs no
+// hand-written add-in code.
+//
+//   addin_gen OUTDIR
+//
+// writes into OUTDIR:
+//   XDealFunctions.idl   the UNO interface and service (one method per function)
+//   CalcAddIns.xcu       Function Wizard metadata: names, descriptions, category
+//   deal_methods_decl.inc  C++ declarations of the interface methods
+//   deal_methods_def.inc   C++ definitions: each forwards to the generic evaluator
+//   deal_functions.txt   one line per Calc function: Calc name, method, arguments
+//                        (read by the sheet tests to check the metadata)
+//
+// The stored names (service org.counteroffer.DealFunctions, method get<CamelName>)
+// are part of every saved spreadsheet: see addin/README.md before changing them.
+#include <counteroffer/counteroffer.h>
+
+#include <cctype>
+#include <cstdio>
+#include <fstream>
+#include <iostream>
+#include <set>
+#include <sstream>
+#include <string>
+#include <vector>
+
+namespace {
+
+const char *const kService = "org.counteroffer.DealFunctions";
+const char *const kNotice =
+    " Model estimate under stated assumptions; not financial, legal or tax advice.";
+
+// Every method of the interface: one per catalogue function, one "outcome" form
+// for each function with more than one output, and the call-overhead probe.
+struct Method {
+    std::string method;     // IDL method name, e.g. getShare
+    std::string calc;       // Calc display name, e.g. DEALSHARE
+    std::string desc;       // Function Wizard description
+    std::string category;   // Calc programmatic category
+    std::vector<std::string> params, labels, helps;
+    int id;                 // catalogue id, or -1 for the probe
+    bool outcome;           // array of every output
+};
+
+std::string camel(const std::string &snake) {
+    std::string r;
+    bool up = true;
+    for (char c : snake) {
+        if (c == '_') {
+            up = true;
+            continue;
+        }
+        r += up ? static_cast<char>(std::toupper(static_cast<unsigned char>(c))) : c;
+        up = false;
+    }
+    return r;
+}
+
+std::string xml(const std::string &s) {
+    std::string r;
+    for (char c : s) {
+        switch (c) {
+        case '&': r += "&amp;"; break;
+        case '<': r += "&lt;"; break;
+        case '>': r += "&gt;"; break;
+        case '"': r += "&quot;"; break;
+        default: r += c;
+        }
+    }
+    return r;
+}
+
+// Identifiers that UNO IDL reserves; a catalogue argument with such a name gets the
+// suffix "Arg" in the IDL (the xcu uses the same spelling).
+bool idl_reserved(const std::string &s) {
+    static const std::set<std::string> kw = {
+        "any", "attribute", "boolean", "bound", "byte", "char", "const", "constants",
+        "constrained", "double", "enum", "exception", "float", "get", "hyper", "in",
+        "inout", "interface", "long", "maybeambiguous", "maybedefault", "maybevoid",
+        "module", "needs", "observes", "oneway", "optional", "out", "property",
+        "published", "raises", "readonly", "removable", "sequence", "service", "set",
+        "short", "singleton", "string", "struct", "transient", "type", "typedef",
+        "unsigned", "void", "TRUE", "FALSE"};
+    return kw.count(s) != 0;
+}
+
+// First letter upper case, no trailing full stop (the caller adds punctuation).
+std::string sentence(std::string s) {
+    while (!s.empty() && (s.back() == '.' || s.back() == ' ')) s.pop_back();
+    if (!s.empty()) s[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(s[0])));
+    return s;
+}
+
+bool write_file(const std::string &path, const std::string &text) {
+    std::ofstream f(path, std::ios::binary);
+    f << text;
+    f.close();
+    if (!f) {
+        std::cerr << "addin_gen: cannot write " << path << "\n";
+        return false;
+    }
+    return true;
+}
+
+std::string default_text(const cto_arg_info &a) {
+    std::ostringstream s;
+    if (a.kind == CTO_ARG_BOOL) return a.default_value != 0.0 ? "TRUE" : "FALSE";
+    if (a.kind == CTO_ARG_CHOICE && a.choices) {
+        const long k = static_cast<long>(a.default_value);
+        long i = 0;
+        for (const char *const *c = a.choices; *c; ++c, ++i)
+            if (i == k) return std::string("\"") + *c + "\"";
+    }
+    if (a.kind == CTO_ARG_OPTIONAL) return "none";
+    s << a.default_value;
+    return s.str();
+}
+
+std::vector<Method> collect() {
+    std::vector<Method> ms;
+    const size_t n = cto_function_count();
+    for (size_t i = 0; i < n; ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        if (!f || !f->name || !f->calc_name) continue;
+        Method m;
+        m.method = "get" + camel(f->name);
+        m.calc = f->calc_name;
+        m.desc = sentence(f->summary ? f->summary : "") + ". Source: " +
+                 (f->source ? f->source : "") + "." + kNotice;
+        m.category = "Financial";
+        m.id = f->id;
+        m.outcome = false;
+        for (int j = 0; j < f->n_args; ++j) {
+            const cto_arg_info &a = f->args[j];
+            // UNO IDL allows no lower-case letter after an underscore: ownFactor.
+            std::string p = camel(a.name);
+            p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
+            if (idl_reserved(p)) p += "Arg";
+            m.params.push_back(p);
+            m.labels.push_back(a.label ? a.label : a.name);
+            std::string h = sentence(a.help ? a.help : "");
+            if (a.has_default) {
+                if (h.find("default") == std::string::npos)
+                    h += " (default " + default_text(a) + ")";
+                h += ". Optional.";
+            } else {
+                h += ". Required.";
+            }
+            m.helps.push_back(h);
+        }
+        ms.push_back(m);
+        if (f->n_outputs > 1) {
+            Method o = m;
+            o.method += "Outcome";
+            o.calc += "OUTCOME";
+            std::string outs;
+            for (int k = 0; k < f->n_outputs; ++k)
+                outs += std::string(k ? ", " : "") + f->outputs[k].name;
+            o.desc = sentence(f->summary ? f->summary : "") +
+                     "; array form, one row per case with the columns " + outs +
+                     " (enter as a matrix formula). Source: " + (f->source ? f->source : "") +
+                     "." + kNotice;
+            o.outcome = true;
+            ms.push_back(o);
+        }
+    }
+    Method probe;
+    probe.method = "getCallProbe";
+    probe.calc = "DEALCALLPROBE";
+    probe.desc = "Diagnostic: returns its first argument after the same argument "
+                 "conversion as every DEAL function; measures the cost of an add-in call.";
+    probe.category = "Add-In";
+    probe.params = {"value", "other"};
+    probe.labels = {"Value", "Other"};
+    probe.helps = {"any number; returned unchanged. Required.",
+                   "any number; converted and ignored. Required."};
+    probe.id = -1;
+    probe.outcome = false;
+    ms.push_back(probe);
+    return ms;
+}
+
+std::string make_idl(const std::vector<Method> &ms) {
+    std::ostringstream s;
+    s << "// Generated by addin_gen from the counteroffer catalogue table. Do not edit.\n"
+         "// The module, interface, service and method names are stored in saved\n"
+         "// spreadsheets and are stable (addin/README.md).\n"
+         "module org { module counteroffer {\n"
+         "interface XDealFunctions : com::sun::star::uno::XInterface\n{\n";
+    for (const Method &m : ms) {
+        s << "    any " << m.method << "(";
+        for (size_t j = 0; j < m.params.size(); ++j)
+            s << (j ? ", " : "") << "[in] any " << m.params[j];
+        s << ")\n        raises(com::sun::star::lang::IllegalArgumentException,\n"
+             "               com::sun::star::sheet::NoConvergenceException);\n";
+    }
+    s << "};\nservice DealFunctions : XDealFunctions;\n}; };\n";
+    return s.str();
+}
+
+std::string make_xcu(const std::vector<Method> &ms) {
+    std::ostringstream s;
+    s << "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
+         "<!-- Generated by addin_gen from the counteroffer catalogue table. Do not edit. -->\n"
+         "<oor:component-data xmlns:oor=\"http://openoffice.org/2001/registry\"\n"
+         "    xmlns:xs=\"http://www.w3.org/2001/XMLSchema\"\n"
+         "    oor:name=\"CalcAddIns\" oor:package=\"org.openoffice.Office\">\n"
+         " <node oor:name=\"AddInInfo\">\n"
+      << "  <node oor:name=\"" << kService << "\" oor:op=\"replace\">\n"
+      << "   <node oor:name=\"AddInFunctions\">\n";
+    for (const Method &m : ms) {
+        s << "    <node oor:name=\"" << m.method << "\" oor:op=\"replace\">\n"
+          << "     <prop oor:name=\"DisplayName\"><value xml:lang=\"en-US\">" << xml(m.calc)
+          << "</value></prop>\n"
+          << "     <prop oor:name=\"Description\"><value xml:lang=\"en-US\">" << xml(m.desc)
+          << "</value></prop>\n"
+          << "     <prop oor:name=\"Category\"><value>" << m.category << "</value></prop>\n"
+          << "     <node oor:name=\"Parameters\">\n";
+        for (size_t j = 0; j < m.params.size(); ++j) {
+            s << "      <node oor:name=\"" << m.params[j] << "\" oor:op=\"replace\">\n"
+              << "       <prop oor:name=\"DisplayName\"><value xml:lang=\"en-US\">"
+              << xml(m.labels[j]) << "</value></prop>\n"
+              << "       <prop oor:name=\"Description\"><value xml:lang=\"en-US\">"
+              << xml(m.helps[j]) << "</value></prop>\n"
+              << "      </node>\n";
+        }
+        s << "     </node>\n    </node>\n";
+    }
+    s << "   </node>\n  </node>\n </node>\n</oor:component-data>\n";
+    return s.str();
+}
+
+std::string make_decl(const std::vector<Method> &ms) {
+    std::ostringstream s;
+    s << "// Generated by addin_gen. Do not edit.\n";
+    for (const Method &m : ms) {
+        s << "css::uno::Any SAL_CALL " << m.method << "(";
+        for (size_t j = 0; j < m.params.size(); ++j)
+            s << (j ? ", " : "") << "const css::uno::Any &a" << j;
+        s << ") override;\n";
+    }
+    return s.str();
+}
+
+std::string make_def(const std::vector<Method> &ms) {
+    std::ostringstream s;
+    s << "// Generated by addin_gen. Do not edit.\n";
+    for (const Method &m : ms) {
+        s << "css::uno::Any SAL_CALL DealFunctions::" << m.method << "(";
+        for (size_t j = 0; j < m.params.size(); ++j)
+            s << (j ? ", " : "") << "const css::uno::Any &a" << j;
+        s << ")\n{\n    const css::uno::Any *const args[] = {";
+        for (size_t j = 0; j < m.params.size(); ++j) s << (j ? ", " : "") << "&a" << j;
+        s << "};\n";
+        if (m.id < 0)
+            s << "    return probe(args);\n";
+        else
+            s << "    return evaluate(" << m.id << ", args, " << m.params.size() << ", "
+              << (m.outcome ? "true" : "false") << ");\n";
+        s << "}\n";
+    }
+    return s.str();
+}
+
+std::string make_list(const std::vector<Method> &ms) {
+    std::ostringstream s;
+    for (const Method &m : ms) {
+        s << m.calc << "\t" << m.method << "\t" << m.category;
+        for (size_t j = 0; j < m.params.size(); ++j) s << "\t" << m.params[j];
+        s << "\n";
+    }
+    return s.str();
+}
+
+} // namespace
+
+int main(int argc, char **argv) {
+    if (argc != 2) {
+        std::cerr << "usage: addin_gen OUTDIR\n";
+        return 2;
+    }
+    if (cto_version_number() != CTO_VERSION_NUMBER) {
+        std::cerr << "addin_gen: library version differs from the header\n";
+        return 1;
+    }
+    const std::vector<Method> ms = collect();
+    if (ms.size() < 2) {
+        std::cerr << "addin_gen: the catalogue table is empty\n";
+        return 1;
+    }
+    const std::string d = argv[1];
+    const bool ok = write_file(d + "/XDealFunctions.idl", make_idl(ms)) &&
+                    write_file(d + "/CalcAddIns.xcu", make_xcu(ms)) &&
+                    write_file(d + "/deal_methods_decl.inc", make_decl(ms)) &&
+                    write_file(d + "/deal_methods_def.inc", make_def(ms)) &&
+                    write_file(d + "/deal_functions.txt", make_list(ms));
+    return ok ? 0 : 1;
+}
