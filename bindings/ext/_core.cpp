@@ -20,6 +20,7 @@
 #include <numpy/ufuncobject.h>
 
 #include <array>
+#include <cfenv>
 #include <cstring>
 #include <string>
 #include <vector>
@@ -66,6 +67,10 @@ void inner_loop(char **args, const npy_intp *dims, const npy_intp *steps, void *
     rep.size = sizeof rep;
     const int rc = cto_call_strided(d->id, n, args, as.data(), args + d->nin, os.data(), st, ss,
                                     &rep);
+    // The library reports every problem through statuses; the floating-point flags its
+    // arithmetic raises on the way (NaN compared, inf produced and rejected) carry no
+    // information, and NumPy would turn them into RuntimeWarnings after the loop.
+    std::feclearexcept(FE_ALL_EXCEPT);
     Tally &t = g_tally;
     if (rc != CTO_OK) {  // a defect (bad id or pointer): count every element as internal
         t.count[CTO_E_INTERNAL] += n;
