@@ -124,7 +124,7 @@ class ArrayResult(Mapping):  # type: ignore[type-arg]
     def to_records(self) -> np.recarray:
         """The outputs as one record array with a field per output."""
         arrays = [np.asarray(v) for v in self._data.values()]
-        return np.rec.fromarrays(arrays, names=list(self._data))
+        return np.rec.fromarrays(arrays, names=",".join(self._data))  # type: ignore[call-overload]
 
     def __repr__(self) -> str:
         inner = ", ".join(f"{k}={v!r}" for k, v in self._data.items())
@@ -134,7 +134,7 @@ class ArrayResult(Mapping):  # type: ignore[type-arg]
 def _result_class(spec: FunctionSpec) -> Optional[type]:
     if len(spec.outputs) < 2:
         return None
-    fields = []
+    fields: List[Tuple[str, Any]] = []
     for name, _help in spec.outputs:
         if name in OUTPUT_CODES:
             fields.append((name, Optional[str]))
@@ -324,13 +324,13 @@ def _evaluate_array(spec: FunctionSpec, vals: List[Any], out: Any, index: Any) -
         _act(spec.name, status_name, msg, 6)
     if len(spec.outputs) == 1:
         if index is not None:
-            import pandas as pd
+            import pandas as pd  # type: ignore[import-untyped,unused-ignore]
 
             return pd.Series(res, index=index, name=spec.name)
         return res
     data = {name: r for (name, _h), r in zip(spec.outputs, res)}
     if index is not None:
-        import pandas as pd
+        import pandas as pd  # type: ignore[import-untyped,unused-ignore]
 
         return pd.DataFrame(data, index=index)
     return ArrayResult(data)
