@@ -27,8 +27,8 @@ Functions
 
 Command line: ``counteroffer --function share deals.csv -o results.csv``.
 
-Results are model estimates under the stated assumptions, not financial, legal or tax
-advice.
+Results are model estimates under the stated assumptions,
+not financial, legal or tax advice.
 """
 
 from __future__ import annotations
