@@ -104,13 +104,14 @@ inline int share(double own_factor, double other_factor, double surplus, bool ow
     } else {
         v = rub_responder(surplus, own_factor, om_oth, rub_den(other_factor, om_oth, om_own));
     }
-    return status_only(CTO_OK, v, out, bad);
+    return finish(v, out, bad, 2);  // S near DBL_MAX can round past it
 }
 
 // Per-round log discount rho = c(rate) days / basis, c = log1p (annual effective) or
 // identity (continuous).  Factor = exp(-rho); 1 - factor = -expm1(-rho).
 inline double log_discount(double rate, double days, double basis, bool continuous) {
     const double c = continuous ? rate : std::log1p(rate);
+    if (c == 0.0 || days == 0.0) return 0.0;  // no discounting (also when days/basis overflows)
     return c * (days / basis);
 }
 

@@ -166,7 +166,24 @@ int solve_core(const SolveIn &in, SolveOut *o) {
         (std::fabs(WA - aA * (Sp - WB)) <= tol || std::fabs(WB - aB * (Sp - WA)) <= tol))
         boundary = true;
 
-    const double shareA = d0A + X, shareB = d0B + R;
+    // Shares in money.  Where an option binds, the binding side's payoff is formed from
+    // the inputs directly (exactly w_B in (ii) and (iv); a weighted mean in (iii)), which
+    // avoids adding back d0 after subtracting it.
+    double shareA, shareB;
+    switch (regime) {
+        case 1:
+            shareA = d0A + X;
+            shareB = d0B + R;
+            break;
+        case 3:  // A's option binds: x = (1 - a_B)(S - d0_B) + a_B w_A
+            shareA = omB * (S - d0B) + aB * wA;
+            shareB = S - shareA;
+            break;
+        default:  // (ii), (iv): B as responder gets exactly its walk-away value
+            shareB = wB;
+            shareA = S - wB;
+            break;
+    }
     if (!std::isfinite(shareA) || !std::isfinite(shareB)) return kOverflow;
     o->own_share = own_a ? shareA : shareB;
     o->other_share = own_a ? shareB : shareA;
@@ -415,7 +432,7 @@ int first_mover_advantage(double own_factor, double other_factor, double surplus
         return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
     const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
     const double v = surplus * om_own * om_oth / rub_den(own_factor, om_own, om_oth);
-    return status_only(CTO_OK, v, out, bad);
+    return finish(v, out, bad, 2);
 }
 
 // ---------------------------------------------------------------------------
@@ -614,7 +631,7 @@ int group_share(double factor, int64_t parties, int64_t position, double surplus
     const double ld = log_factor(factor);
     const double den = -std::expm1(static_cast<double>(parties) * ld);
     const double num = (1.0 - factor) * std::exp(static_cast<double>(position) * ld);
-    return status_only(CTO_OK, S * num / den, out, bad);
+    return finish(S * (num / den), out, bad, 3);
 }
 
 int majority_share(double factor, int64_t parties, int64_t votes_needed, int role,
@@ -633,11 +650,11 @@ int majority_share(double factor, int64_t parties, int64_t votes_needed, int rol
     const double S = surplus;
     if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
     const double nd = static_cast<double>(n);
-    if (role == CTO_ROLE_PARTNER) return status_only(CTO_OK, S * factor / nd, out, bad);
+    if (role == CTO_ROLE_PARTNER) return finish(S * (factor / nd), out, bad, 4);
     // S (1 - d (q-1)/n) = S ((n - q + 1) + (1 - d)(q - 1)) / n: no cancellation near d = 1.
     const double v = S * (static_cast<double>(n - q + 1) +
                           (1.0 - factor) * static_cast<double>(q - 1)) / nd;
-    return status_only(CTO_OK, v, out, bad);
+    return finish(v, out, bad, 4);
 }
 
 // ---------------------------------------------------------------------------

@@ -15,3 +15,5 @@ build_core "$CTO_BUILD/tsan" -DCTO_BUILD_TESTS=ON -DCTO_BUILD_EXAMPLES=OFF -DCTO
 TSAN_OPTIONS=halt_on_error=1 "$CTO_BUILD/tsan/tests/cpp/cto_tests" '[threads]'
 # ABI stability against the committed baseline (abidiff).
 bash "$CTO_ROOT/tests/abi/check-abi.sh"
+# libFuzzer over every C entry point (ASan + UBSan), a short pass on the committed corpus.
+bash "$CTO_ROOT/tests/fuzz/run-fuzz.sh" 60

@@ -1,0 +1,246 @@
+// libFuzzer harness over every C entry point of counteroffer.  Arbitrary doubles (NaN,
+// infinities, subnormals, huge values, 0, -0, 1, 1 - ulp) and integers go into each named
+// function, cto_call, cto_call_strided and cto_solve; the contract is asserted:
+//   - a known status; the output is always written;
+//   - a finite output whenever the status is ok;
+//   - the named function and the table entry point agree bit for bit;
+//   - solve: when a deal is rational, own + other = surplus and each side gets at least
+//     its no-deal payoff.
+// Any violation aborts (a finding).  Build and run: tests/fuzz/run-fuzz.sh.
+#include <fuzzer/FuzzedDataProvider.h>
+
+#include <cfloat>
+#include <cmath>
+#include <cstdint>
+#include <cstdio>
+#include <cstdlib>
+#include <cstring>
+#include <limits>
+#include <vector>
+
+#include "counteroffer/counteroffer.h"
+
+namespace {
+
+[[noreturn]] void finding(const char *what, const char *fn) {
+    std::fprintf(stderr, "contract violated in %s: %s\n", fn, what);
+    std::abort();
+}
+
+double sentinel() {
+    const uint64_t bits = 0x7ff8dead0000beefULL;  // a NaN with a payload the library never writes
+    double d;
+    std::memcpy(&d, &bits, sizeof d);
+    return d;
+}
+bool is_sentinel(double d) {
+    const double s = sentinel();
+    return std::memcmp(&d, &s, sizeof d) == 0;
+}
+
+double pick_double(FuzzedDataProvider &p) {
+    static const double palette[] = {
+        std::numeric_limits<double>::quiet_NaN(),
+        std::numeric_limits<double>::infinity(),
+        -std::numeric_limits<double>::infinity(),
+        0.0, -0.0, 1.0, std::nextafter(1.0, 0.0), std::nextafter(1.0, 2.0), 0.5, -1.0, 2.0,
+        DBL_MIN, DBL_TRUE_MIN, -DBL_TRUE_MIN, DBL_MAX, -DBL_MAX, 1e-300, 1e300, 1e-9,
+        1.0 - 1e-9, 1.0 - 1e-12, 0.9, 0.95, 0.05, 365.0, 1.0 / 1440, 1e12, -1e12, 3.5};
+    switch (p.ConsumeIntegralInRange<int>(0, 3)) {
+        case 0: return palette[p.ConsumeIntegralInRange<size_t>(0, sizeof palette / sizeof *palette - 1)];
+        case 1: return p.ConsumeProbability<double>();
+        case 2: return p.ConsumeFloatingPointInRange<double>(-10.0, 10.0);
+        default: {
+            const uint64_t bits = p.ConsumeIntegral<uint64_t>();
+            double d;
+            std::memcpy(&d, &bits, sizeof d);
+            return d;
+        }
+    }
+}
+int64_t pick_int(FuzzedDataProvider &p) {
+    static const int64_t palette[] = {0, 1, 2, 3, 5, -1, 101, 1000000, INT64_MAX, INT64_MIN,
+                                      (int64_t(1) << 40) + 1};
+    if (p.ConsumeBool()) return palette[p.ConsumeIntegralInRange<size_t>(0, sizeof palette / sizeof *palette - 1)];
+    return p.ConsumeIntegral<int64_t>();
+}
+
+void check_status(int st, const char *fn) {
+    if (st < CTO_OK || st > CTO_E_INTERNAL) finding("unknown status", fn);
+    if (st == CTO_E_INTERNAL) finding("internal error", fn);
+}
+void check_out(int st, double v, const char *fn) {
+    check_status(st, fn);
+    if (is_sentinel(v)) finding("output not written", fn);
+    if (st == CTO_OK && !std::isfinite(v)) finding("non-finite output with status ok", fn);
+    if ((st == CTO_E_INVALID || st == CTO_E_INDETERMINATE || st == CTO_E_NO_CONVERGENCE) &&
+        !std::isnan(v))
+        finding("a number returned with a failing status", fn);
+    if (st == CTO_E_NO_DEAL && !std::isfinite(v)) finding("non-finite no-deal payoff", fn);
+}
+
+// Calls the named C function for catalogue row `id` with the drawn arguments.
+int call_named(int id, const double *a, const int64_t *n, double *out) {
+    const int b = static_cast<int>(n[0] & 1), c = static_cast<int>(n[1] & 1);
+    const int ch = static_cast<int>(n[2]);
+    switch (id) {
+        case 0: return cto_round_factor(a[0], a[1], a[2], b, out);
+        case 1: return cto_share(a[0], a[1], a[2], b, out);
+        case 2: return cto_share_from_rates(a[0], a[1], a[2], a[3], b, a[5], c, out);
+        case 3: return cto_limit_share(a[0], a[1], a[2], out);
+        case 4: return cto_breakdown_share(a[0], a[1], a[2], a[3], a[4], a[5], b, out);
+        case 5: return cto_outside_option_share(a[0], a[1], a[2], a[3], a[4], b, out);
+        case 6: return cto_inside_option_share(a[0], a[1], a[2], a[3], a[4], b, out);
+        case 8: return cto_deadline_share(a[0], a[1], n[3], a[3], a[4], a[5], b, out);
+        case 9: return cto_fixed_cost_share(a[0], a[1], a[2], b, out);
+        case 10: return cto_delay_cost(a[0], a[1], a[2], a[3], out);
+        case 11: return cto_first_mover_advantage(a[0], a[1], a[2], out);
+        case 12: return cto_nash_share(a[0], a[1], a[2], a[3], a[4], a[5], out);
+        case 13: return cto_risk_averse_share(a[0], a[1], a[2], a[3], ch, a[5], a[6], a[7], a[8], b, out);
+        case 14: return cto_group_share(a[0], n[3], n[4], a[3], out);
+        case 15: return cto_majority_share(a[0], n[3], n[4], ch, a[4], out);
+        case 16: return cto_implied_factor(a[0], a[1], b, out);
+        case 17: return cto_implied_rate(a[0], a[1], a[2], b, a[4], c, out);
+        case 18: return cto_share_sensitivity(a[0], a[1], a[2], ch, a[4], b, a[6], c, out);
+        case 19: return cto_screening_profit(a[0], a[1], a[2], a[3], a[4], out);
+        default: return -1;
+    }
+}
+
+// The doubles cto_call sees for the same call (bools, counts, choices from n[]).
+void generic_args(const cto_function_info *f, const double *a, const int64_t *n, double *g) {
+    int bool_seen = 0, count_seen = 0;
+    for (int j = 0; j < f->n_args; ++j) {
+        switch (f->args[j].kind) {
+            case CTO_ARG_BOOL: g[j] = static_cast<double>(n[bool_seen++] & 1); break;
+            case CTO_ARG_COUNT: g[j] = static_cast<double>(n[3 + count_seen++]); break;
+            case CTO_ARG_CHOICE: g[j] = static_cast<double>(n[2]); break;
+            default: g[j] = a[j];
+        }
+    }
+}
+
+void fuzz_solve(FuzzedDataProvider &p) {
+    cto_solve_input in;
+    in.size = sizeof in;
+    in.own_factor = pick_double(p);
+    in.other_factor = pick_double(p);
+    in.breakdown_prob = pick_double(p);
+    in.own_fallback = pick_double(p);
+    in.other_fallback = pick_double(p);
+    in.own_inside = pick_double(p);
+    in.other_inside = pick_double(p);
+    in.own_outside = pick_double(p);
+    in.other_outside = pick_double(p);
+    in.has_own_outside = p.ConsumeBool();
+    in.has_other_outside = p.ConsumeBool();
+    in.surplus = pick_double(p);
+    in.own_opens = p.ConsumeBool();
+    cto_solve_outcome out;
+    out.size = sizeof out;
+    out.own_share = out.other_share = sentinel();
+    const int st = cto_solve(&in, &out);
+    if (std::getenv("CTO_FUZZ_VERBOSE"))
+        std::fprintf(stderr,
+                     "solve(d=%.17g,%.17g p=%.17g b=%.17g,%.17g g=%.17g,%.17g w=%.17g[%d],%.17g[%d] "
+                     "S=%.17g opens=%d) -> st=%d own=%.17g other=%.17g nd=%.17g,%.17g\n",
+                     in.own_factor, in.other_factor, in.breakdown_prob, in.own_fallback,
+                     in.other_fallback, in.own_inside, in.other_inside, in.own_outside,
+                     in.has_own_outside, in.other_outside, in.has_other_outside, in.surplus,
+                     in.own_opens, st, out.own_share, out.other_share, out.own_no_deal,
+                     out.other_no_deal);
+    check_out(st, out.own_share, "solve");
+    check_out(st, out.other_share, "solve");
+    if (st == CTO_OK) {
+        const long double S = in.surplus;
+        // Errors are relative to the largest money amount that enters the computation.
+        long double scale = std::fabs(S);
+        for (double m : {in.own_fallback, in.other_fallback, in.own_inside, in.other_inside,
+                         out.own_no_deal, out.other_no_deal})
+            scale += std::fabs(static_cast<long double>(m));
+        if (in.has_own_outside) scale += std::fabs(static_cast<long double>(in.own_outside));
+        if (in.has_other_outside) scale += std::fabs(static_cast<long double>(in.other_outside));
+        const long double sum = static_cast<long double>(out.own_share) + out.other_share;
+        if (std::fabs(sum - S) > 1e-15L * scale) finding("own + other != surplus", "solve");
+        if (out.own_share < out.own_no_deal - 1e-15L * scale) finding("own below its no-deal payoff", "solve");
+        if (out.other_share < out.other_no_deal - 1e-15L * scale)
+            finding("other below its no-deal payoff", "solve");
+        if (!out.deal_rational) finding("ok without a rational deal", "solve");
+    }
+}
+
+}  // namespace
+
+extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
+    FuzzedDataProvider p(data, size);
+    const int which = p.ConsumeIntegralInRange<int>(0, static_cast<int>(cto_function_count()));
+    if (which == static_cast<int>(cto_function_count()) || which == 7) {
+        fuzz_solve(p);
+        if (which == 7) {
+            // also the table entry for solve
+        } else {
+            return 0;
+        }
+    }
+    const cto_function_info *f = cto_function_at(static_cast<size_t>(which));
+    double a[16];
+    int64_t n[8];
+    for (double &x : a) x = pick_double(p);
+    for (int64_t &x : n) x = pick_int(p);
+    n[2] = p.ConsumeIntegralInRange<int>(-1, 2);  // a choice, sometimes out of range
+    double named_out = sentinel();
+    const int named = call_named(f->id, a, n, &named_out);
+    double g[16];
+    generic_args(f, a, n, g);
+    double outs[8];
+    for (double &o : outs) o = sentinel();
+    int bad = -2;
+    const int generic = cto_call(f->id, g, outs, &bad);
+    check_status(generic, f->name);
+    for (int k = 0; k < f->n_outputs; ++k)
+        if (is_sentinel(outs[k])) finding("generic output not written", f->name);
+    check_out(generic, outs[0], f->name);
+    if (generic == CTO_E_INVALID && (bad < 0 || bad >= f->n_args)) finding("no bad argument named", f->name);
+    if (generic != CTO_E_INVALID && bad != -1) finding("bad argument named without invalid", f->name);
+    // Counts beyond 2^53 have no exact double: the two paths then see different numbers.
+    const bool exact_counts = std::llabs(n[3] == INT64_MIN ? INT64_MAX : n[3]) <= (int64_t(1) << 53) &&
+                              std::llabs(n[4] == INT64_MIN ? INT64_MAX : n[4]) <= (int64_t(1) << 53);
+    if (named >= 0) check_out(named, named_out, f->name);
+    if (named >= 0 && exact_counts) {
+        if (named != generic) finding("named and generic statuses differ", f->name);
+        if (std::memcmp(&named_out, &outs[0], sizeof(double)) != 0 &&
+            !(std::isnan(named_out) && std::isnan(outs[0])))
+            finding("named and generic values differ", f->name);
+    }
+    // The strided entry point over three elements, the middle one broadcast.
+    const char *args[16];
+    ptrdiff_t strides[16];
+    double col[16][3];
+    for (int j = 0; j < f->n_args; ++j) {
+        col[j][0] = col[j][1] = col[j][2] = g[j];
+        args[j] = reinterpret_cast<const char *>(col[j]);
+        strides[j] = (j % 2) ? 0 : static_cast<ptrdiff_t>(sizeof(double));
+    }
+    double so[8][3];
+    char *optr[8];
+    ptrdiff_t ostr[8];
+    for (int k = 0; k < f->n_outputs; ++k) {
+        so[k][0] = so[k][1] = so[k][2] = sentinel();
+        optr[k] = reinterpret_cast<char *>(so[k]);
+        ostr[k] = sizeof(double);
+    }
+    signed char sts[3] = {-9, -9, -9};
+    cto_batch_report rep;
+    rep.size = sizeof rep;
+    if (cto_call_strided(f->id, 3, args, strides, optr, ostr, sts, 1, &rep) != CTO_OK)
+        finding("strided call refused", f->name);
+    for (int i = 0; i < 3; ++i) {
+        if (sts[i] != generic) finding("strided status differs", f->name);
+        for (int k = 0; k < f->n_outputs; ++k)
+            if (std::memcmp(&so[k][i], &outs[k], sizeof(double)) != 0 &&
+                !(std::isnan(so[k][i]) && std::isnan(outs[k])))
+                finding("strided value differs", f->name);
+    }
+    if (rep.count[generic] != 3) finding("report count wrong", f->name);
+    return 0;
+}
