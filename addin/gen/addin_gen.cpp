@@ -9,7 +9,8 @@
 //   CalcAddIns.xcu       Function Wizard metadata: names, descriptions, category
 //   deal_methods_decl.inc  C++ declarations of the interface methods
 //   deal_methods_def.inc   C++ definitions: each forwards to the generic evaluator
-//   deal_functions.txt   one line per Calc function: Calc name, method, arguments
+//   deal_functions.txt   one line per Calc function: Calc name, method, category,
+//                        arguments (an optional one is marked with a trailing ?)
 //                        (read by the sheet tests to check the metadata)
 //
 // The stored names (service org.counteroffer.DealFunctions, method get<CamelName>)
@@ -39,6 +40,7 @@ struct Method {
     std::string desc;       // Function Wizard description
     std::string category;   // Calc programmatic category
     std::vector<std::string> params, labels, helps;
+    std::vector<bool> optional; // optional: `any`; required: sequence<sequence<any>>
     int id;                 // catalogue id, or -1 for the probe
     bool outcome;           // array of every output
 };
@@ -138,6 +140,7 @@ std::vector<Method> collect() {
             p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
             if (idl_reserved(p)) p += "Arg";
             m.params.push_back(p);
+            m.optional.push_back(a.has_default != 0);
             m.labels.push_back(a.label ? a.label : a.name);
             std::string h = sentence(a.help ? a.help : "");
             if (a.has_default) {
@@ -172,6 +175,7 @@ std::vector<Method> collect() {
                  "conversion as every DEAL function; measures the cost of an add-in call.";
     probe.category = "Add-In";
     probe.params = {"value", "other"};
+    probe.optional = {false, false};
     probe.labels = {"Value", "Other"};
     probe.helps = {"any number; returned unchanged. Required.",
                    "any number; converted and ignored. Required."};
@@ -191,7 +195,8 @@ std::string make_idl(const std::vector<Method> &ms) {
     for (const Method &m : ms) {
         s << "    any " << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
-            s << (j ? ", " : "") << "[in] any " << m.params[j];
+            s << (j ? ", " : "") << "[in] " << (m.optional[j] ? "any " : "sequence< sequence< any > > ")
+              << m.params[j];
         s << ")\n        raises(com::sun::star::lang::IllegalArgumentException,\n"
              "               com::sun::star::sheet::NoConvergenceException);\n";
     }
@@ -237,7 +242,7 @@ std::string make_decl(const std::vector<Method> &ms) {
     for (const Method &m : ms) {
         s << "css::uno::Any SAL_CALL " << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
-            s << (j ? ", " : "") << "const css::uno::Any &a" << j;
+            s << (j ? ", " : "") << (m.optional[j] ? "const css::uno::Any &a" : "const Mixed &a") << j;
         s << ") override;\n";
     }
     return s.str();
@@ -249,9 +254,9 @@ std::string make_def(const std::vector<Method> &ms) {
     for (const Method &m : ms) {
         s << "css::uno::Any SAL_CALL DealFunctions::" << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
-            s << (j ? ", " : "") << "const css::uno::Any &a" << j;
-        s << ")\n{\n    const css::uno::Any *const args[] = {";
-        for (size_t j = 0; j < m.params.size(); ++j) s << (j ? ", " : "") << "&a" << j;
+            s << (j ? ", " : "") << (m.optional[j] ? "const css::uno::Any &a" : "const Mixed &a") << j;
+        s << ")\n{\n    const Arg args[] = {";
+        for (size_t j = 0; j < m.params.size(); ++j) s << (j ? ", " : "") << "Arg(a" << j << ")";
         s << "};\n";
         if (m.id < 0)
             s << "    return probe(args);\n";
@@ -267,7 +272,8 @@ std::string make_list(const std::vector<Method> &ms) {
     std::ostringstream s;
     for (const Method &m : ms) {
         s << m.calc << "\t" << m.method << "\t" << m.category;
-        for (size_t j = 0; j < m.params.size(); ++j) s << "\t" << m.params[j];
+        for (size_t j = 0; j < m.params.size(); ++j)
+            s << "\t" << m.params[j] << (m.optional[j] ? "?" : "");
         s << "\n";
     }
     return s.str();

@@ -37,6 +37,7 @@
 #include <cstring>
 #include <exception>
 #include <limits>
+#include <memory>
 #include <vector>
 
 namespace css = com::sun::star;
@@ -127,38 +128,58 @@ double to_double(const css::uno::Any &v, const cto_arg_info &a) {
     }
 }
 
-// A range argument: Calc passes sequence<sequence<any>> (rows of cells) for an
-// `any` parameter given a cell range or an inline array.
-struct Range {
-    const css::uno::Sequence<css::uno::Sequence<css::uno::Any>> *mixed = nullptr;
-    css::uno::Sequence<css::uno::Sequence<css::uno::Any>> owned;
-    sal_Int32 rows = 1, cols = 1;
+using Mixed = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
+
+// One argument as Calc passes it.  A required argument is declared
+// sequence<sequence<any>>: Calc then hands over a single cell as a 1x1 range whose
+// element is VOID when the cell is empty (as `any`, an empty cell arrives as 0).
+// An optional argument is declared `any` (VOID when left out); it may also hold a
+// range (sequence<sequence<any>>) or an inline array.
+struct Arg {
+    const css::uno::Any *any = nullptr;
+    const Mixed *seq = nullptr;
+    explicit Arg(const css::uno::Any &a) : any(&a) {}
+    explicit Arg(const Mixed &m) : seq(&m) {}
 };
 
-bool as_range(const css::uno::Any &v, Range &r) {
-    if (v.getValueTypeClass() != css::uno::TypeClass_SEQUENCE) return false;
-    using Mixed = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
-    if (v.getValueType() == cppu::UnoType<Mixed>::get()) {
-        r.mixed = static_cast<const Mixed *>(v.getValue()); // no copy
-    } else {
-        // sequence<sequence<double>> or another element type: convert once.
-        if (!(v >>= r.owned)) {
-            css::uno::Sequence<css::uno::Sequence<double>> d;
-            if (!(v >>= d)) return false;
-            r.owned.realloc(d.getLength());
-            for (sal_Int32 i = 0; i < d.getLength(); ++i) {
-                css::uno::Sequence<css::uno::Any> row(d[i].getLength());
-                for (sal_Int32 j = 0; j < d[i].getLength(); ++j) row.getArray()[j] <<= d[i][j];
-                r.owned.getArray()[i] = row;
-            }
-        }
-        r.mixed = &r.owned;
+// A rectangular view of an argument: a range (rows x cols) or one value (1 x 1).
+struct View {
+    const Mixed *m = nullptr;          // the range, or nullptr for a single value
+    const css::uno::Any *one = nullptr; // the single value
+    std::unique_ptr<Mixed> owned;       // a converted sequence<sequence<double>>
+    sal_Int32 rows = 1, cols = 1;
+
+    const css::uno::Any &at(sal_Int32 r, sal_Int32 c) const {
+        return m ? (*m)[r][c] : *one;
     }
-    r.rows = r.mixed->getLength();
-    r.cols = r.rows > 0 ? (*r.mixed)[0].getLength() : 0;
-    for (sal_Int32 i = 1; i < r.rows; ++i)
-        if ((*r.mixed)[i].getLength() != r.cols) return false;
-    return r.rows > 0 && r.cols > 0;
+    const css::uno::Any &first() const { return m ? (*m)[0][0] : *one; }
+};
+
+// false: not a usable range (ragged, empty, or an unknown element type).
+bool make_view(const Arg &a, View &v) {
+    if (a.seq) {
+        v.m = a.seq;
+    } else if (a.any->getValueTypeClass() != css::uno::TypeClass_SEQUENCE) {
+        v.one = a.any;
+        return true;
+    } else if (a.any->getValueType() == cppu::UnoType<Mixed>::get()) {
+        v.m = static_cast<const Mixed *>(a.any->getValue()); // no copy
+    } else {
+        css::uno::Sequence<css::uno::Sequence<double>> d;
+        if (!(*a.any >>= d)) return false;
+        v.owned = std::make_unique<Mixed>(d.getLength());
+        for (sal_Int32 i = 0; i < d.getLength(); ++i) {
+            css::uno::Sequence<css::uno::Any> row(d[i].getLength());
+            for (sal_Int32 j = 0; j < d[i].getLength(); ++j) row.getArray()[j] <<= d[i][j];
+            v.owned->getArray()[i] = row;
+        }
+        v.m = v.owned.get();
+    }
+    v.rows = v.m->getLength();
+    v.cols = v.rows > 0 ? (*v.m)[0].getLength() : 0;
+    for (sal_Int32 i = 1; i < v.rows; ++i)
+        if ((*v.m)[i].getLength() != v.cols) return false;
+    return v.rows > 0 && v.cols > 0;
 }
 
 } // namespace
@@ -212,17 +233,20 @@ class DealFunctions
             static_cast<sal_Int16>(bad >= 0 ? bad : 0));
     }
 
-    css::uno::Any evaluate(int id, const css::uno::Any *const *args, int n, bool outcome) {
+    css::uno::Any evaluate(int id, const Arg *args, int n, bool outcome) {
         try {
             const cto_function_info &f = info(id);
             if (f.n_args != n || n > kMaxArgs || f.n_outputs < 1 || f.n_outputs > kMaxArgs)
                 throw css::uno::RuntimeException(
                     "counteroffer: the add-in was built for another catalogue");
-            bool any_range = outcome;
-            for (int j = 0; j < n && !any_range; ++j)
-                any_range = args[j]->getValueTypeClass() == css::uno::TypeClass_SEQUENCE;
-            if (any_range) return evaluate_array(f, args, outcome);
-            return evaluate_scalar(f, args);
+            View views[kMaxArgs];
+            bool array = outcome;
+            for (int j = 0; j < n; ++j) {
+                if (!make_view(args[j], views[j])) throw_invalid(f, j);
+                array = array || views[j].rows != 1 || views[j].cols != 1;
+            }
+            if (array) return evaluate_array(f, views, outcome);
+            return evaluate_scalar(f, views);
         } catch (const css::uno::Exception &) {
             throw; // IllegalArgument, NoConvergence, Runtime: mapped by Calc
         } catch (const std::exception &e) {
@@ -232,10 +256,10 @@ class DealFunctions
         }
     }
 
-    css::uno::Any evaluate_scalar(const cto_function_info &f, const css::uno::Any *const *args) {
+    css::uno::Any evaluate_scalar(const cto_function_info &f, const View *views) {
         double in[kMaxArgs];
         double out[kMaxArgs];
-        for (int j = 0; j < f.n_args; ++j) in[j] = to_double(*args[j], f.args[j]);
+        for (int j = 0; j < f.n_args; ++j) in[j] = to_double(views[j].first(), f.args[j]);
         int bad = -1;
         const int st = cto_call(f.id, in, out, &bad);
         switch (st) {
@@ -260,22 +284,16 @@ class DealFunctions
     // single value (or a 1x1 range) applies to every element.  The plain form
     // returns the first output in that shape; the outcome form returns one row per
     // element (row-major) with every output as a column.
-    css::uno::Any evaluate_array(const cto_function_info &f, const css::uno::Any *const *args,
-                                 bool outcome) {
+    css::uno::Any evaluate_array(const cto_function_info &f, const View *views, bool outcome) {
         const int n = f.n_args;
-        std::vector<Range> ranges(static_cast<size_t>(n));
-        std::vector<char> is_range(static_cast<size_t>(n), 0);
         sal_Int32 rows = 1, cols = 1;
         for (int j = 0; j < n; ++j) {
-            if (args[j]->getValueTypeClass() != css::uno::TypeClass_SEQUENCE) continue;
-            Range &r = ranges[static_cast<size_t>(j)];
-            if (!as_range(*args[j], r)) throw_invalid(f, j);
-            if (r.rows == 1 && r.cols == 1) continue; // broadcast like a scalar
-            is_range[static_cast<size_t>(j)] = 1;
+            const View &v = views[j];
+            if (v.rows == 1 && v.cols == 1) continue; // broadcast like a scalar
             if (rows == 1 && cols == 1) {
-                rows = r.rows;
-                cols = r.cols;
-            } else if (r.rows != rows || r.cols != cols) {
+                rows = v.rows;
+                cols = v.cols;
+            } else if (v.rows != rows || v.cols != cols) {
                 throw css::lang::IllegalArgumentException(
                     OUString::createFromAscii(f.calc_name) + ": argument " +
                         OUString::number(j + 1) + " has another shape than the ranges before it",
@@ -288,20 +306,18 @@ class DealFunctions
         std::vector<ptrdiff_t> arg_stride(static_cast<size_t>(n));
         for (int j = 0; j < n; ++j) {
             const size_t uj = static_cast<size_t>(j);
+            const View &v = views[j];
             std::vector<double> &c = cols_in[uj];
-            if (is_range[uj]) {
+            if (v.rows != 1 || v.cols != 1) {
                 c.resize(count);
-                const auto &m = *ranges[uj].mixed;
                 size_t k = 0;
                 for (sal_Int32 r = 0; r < rows; ++r) {
-                    const css::uno::Any *row = m[r].getConstArray();
+                    const css::uno::Any *row = (*v.m)[r].getConstArray();
                     for (sal_Int32 q = 0; q < cols; ++q) c[k++] = to_double(row[q], f.args[j]);
                 }
                 arg_stride[uj] = static_cast<ptrdiff_t>(sizeof(double));
             } else {
-                const css::uno::Any &v =
-                    ranges[uj].mixed ? (*ranges[uj].mixed)[0][0] : *args[j];
-                c.assign(1, to_double(v, f.args[j]));
+                c.assign(1, to_double(v.first(), f.args[j]));
                 arg_stride[uj] = 0;
             }
             arg_ptr[uj] = reinterpret_cast<const char *>(c.data());
@@ -312,7 +328,8 @@ class DealFunctions
         std::vector<char *> out_ptr(static_cast<size_t>(f.n_outputs));
         std::vector<ptrdiff_t> out_stride(static_cast<size_t>(f.n_outputs),
                                           static_cast<ptrdiff_t>(sizeof(double)));
-        for (size_t k = 0; k < outs.size(); ++k) out_ptr[k] = reinterpret_cast<char *>(outs[k].data());
+        for (size_t k = 0; k < outs.size(); ++k)
+            out_ptr[k] = reinterpret_cast<char *>(outs[k].data());
         std::vector<signed char> status(count);
         cto_batch_report report;
         std::memset(&report, 0, sizeof report);
@@ -353,17 +370,27 @@ class DealFunctions
         return css::uno::Any(res);
     }
 
-    // DEALCALLPROBE: the same conversion as every function, no model.
-    css::uno::Any probe(const css::uno::Any *const *args) {
-        static const cto_arg_info kNumber = {"value", "Value", "", CTO_ARG_REAL, 0, 0.0, 0,
-                                             nullptr};
-        const double v = to_double(*args[0], kNumber);
-        const double w = to_double(*args[1], kNumber);
-        if (!std::isfinite(v) || !std::isfinite(w))
-            throw css::lang::IllegalArgumentException(
-                "DEALCALLPROBE: a number is required",
-                css::uno::Reference<css::uno::XInterface>(), 0);
-        return css::uno::Any(v);
+    // DEALCALLPROBE: the same argument conversion as every function, no model.
+    css::uno::Any probe(const Arg *args) {
+        try {
+            static const cto_arg_info kNumber = {"value", "Value", "", CTO_ARG_REAL, 0, 0.0, 0,
+                                                 nullptr};
+            View v, w;
+            if (!make_view(args[0], v) || !make_view(args[1], w))
+                throw css::lang::IllegalArgumentException(
+                    "DEALCALLPROBE: bad range", css::uno::Reference<css::uno::XInterface>(), 0);
+            const double x = to_double(v.first(), kNumber);
+            const double y = to_double(w.first(), kNumber);
+            if (!std::isfinite(x) || !std::isfinite(y))
+                throw css::lang::IllegalArgumentException(
+                    "DEALCALLPROBE: a number is required",
+                    css::uno::Reference<css::uno::XInterface>(), 0);
+            return css::uno::Any(x);
+        } catch (const css::uno::Exception &) {
+            throw;
+        } catch (...) {
+            throw css::uno::RuntimeException("counteroffer: unexpected failure");
+        }
     }
 };
 
