@@ -72,6 +72,21 @@ inline int finish(double value, double *out, int *bad, int blame = 0) {
     return status_only(CTO_OK, value, out, bad);
 }
 
+// ---- exact comparisons ------------------------------------------------------
+// Whether a > x + y in exact arithmetic, for finite doubles whose sum does not overflow.
+// Deciding "is a deal rational" this way keeps the answer right to the last bit when the
+// no-deal payoffs add up to the surplus within rounding (Knuth's TwoSum).
+inline bool exceeds(double a, double x, double y) {
+    const double s = x + y;
+    const double bb = s - x;
+    const double e = (x - (s - bb)) + (y - bb);  // x + y = s + e exactly
+    const double t = a - s;
+    const double cc = t - a;
+    const double f = (a - (t - cc)) + (-s - cc);  // a - s = t + f exactly
+    // a - (x + y) = t + f - e; near a tie t is exact (f = 0) and small.
+    return t > e - f;
+}
+
 // ---- Rubinstein kernels -----------------------------------------------------
 // With om_x = 1 - d_x (exact for d_x >= 1/2), 1 - d_open d_resp is formed as
 // om_open + d_open om_resp: a sum of non-negative terms, so no cancellation.

@@ -122,8 +122,8 @@ int solve_core(const SolveIn &in, SolveOut *o) {
         std::isnan(WA) || std::isnan(WB))
         return kOverflow;
     const bool hasA = WA > 0.0, hasB = WB > 0.0;  // only a positive W can bind
-    const double excess = Sp - (hasA ? WA : 0.0) - (hasB ? WB : 0.0);
-    if (!(excess > 0.0)) {
+    // Rational iff S > max(w_A, d0_A) + max(w_B, d0_B), decided exactly.
+    if (!exceeds(S, ndA, ndB)) {
         o->own_share = o->own_no_deal;
         o->other_share = o->other_no_deal;
         return CTO_E_NO_DEAL;
@@ -288,11 +288,72 @@ int inside_option_share(double own_factor, double other_factor, double own_insid
 // ---------------------------------------------------------------------------
 // Deadline (finite horizon)
 // ---------------------------------------------------------------------------
-// Backward induction from the last round, exact; once agreement holds with both values
-// non-negative, every earlier round agrees too (the proposer can always pay the
-// responder's discounted value and keep more than its own), and the rest is the
-// two-step linear map F -> S (1 - d_resp) + q F, taken in one step with q^m.
-static constexpr int64_t kDeadlineSteps = 100000;
+// Exact backward induction from the last round.  In each round the proposer either makes
+// the offer the responder accepts (its discounted value of going on) or, when that leaves
+// it less than its own discounted value of waiting, an offer that is refused; the
+// responder accepts when indifferent.  Play therefore runs in phases:
+//   - an agreement phase, where the proposer's value follows the two-step linear map
+//     F -> S (1 - d_resp) + q F, so F_{s-2m} = F* + q^m (F_s - F*) with q^m = exp(m log q);
+//     whether agreement holds in a round is affine in q^m, hence monotone in m;
+//   - a disagreement phase (possible with negative payoffs), where each side's value is
+//     only discounted, v_i d_i^k; agreement returns when S >= sum_i d_i^k v_i, a constant
+//     minus two exponentials in k, which has at most one turning point.
+// Each phase is crossed at once by bisection on its monotone pieces, so the cost does not
+// grow with `rounds`.  Once agreement holds with both values non-negative (and S >= 0)
+// it holds in every earlier round: the proposer can always pay the responder's
+// discounted value and keep more than its own.
+namespace {
+
+constexpr int kDeadlinePhases = 4096;  // phase changes before giving up (no_convergence)
+
+struct Deadline {
+    double S;
+    double d[2], ld[2];  // factors and their logs, [A, B]; A proposes in odd rounds
+    double omA, omB, one_minus_q, log_q;
+
+    static int proposer(int64_t t) { return (t % 2 == 1) ? 0 : 1; }
+
+    // Proposer value at round r <= s given proposer value Fs at round s and agreement in
+    // every round r..s (same parity as s).
+    double back_same(int64_t s, double Fs, int64_t r) const {
+        if (one_minus_q == 0.0) return Fs;  // both factors 1: the values just alternate
+        const int X = proposer(r);
+        const double star = rub_opener(S, X == 0 ? omB : omA, one_minus_q);
+        return star + pow_count(log_q, static_cast<double>((s - r) / 2)) * (Fs - star);
+    }
+    // Proposer value at any round r <= t, agreement in every round r..t.
+    double F_at(int64_t t, double Ft, int64_t r) const {
+        if ((t - r) % 2 == 0) return back_same(t, Ft, r);
+        const double Ft1 = S - d[proposer(t)] * Ft;  // round t-1, one step of agreement
+        return back_same(t - 1, Ft1, r);
+    }
+    // Whether round r agrees given agreement in round r+1 with proposer value F (weak).
+    bool agrees_after(int64_t r, double F) const {
+        const int P = proposer(r), R = 1 - P;  // R proposes in round r + 1
+        return S - d[R] * F >= d[P] * (S - F);
+    }
+    // Discounting a value over k rounds: v d^k.
+    double disc(int i, double v, double k) const {
+        if (v == 0.0 || k == 0.0) return v;
+        return v * pow_count(ld[i], k);
+    }
+};
+
+// Largest index in [lo, hi] where pred holds, given pred(lo) and pred is true on a prefix
+// [lo, x] and false after it.
+template <class Pred>
+int64_t last_true(int64_t lo, int64_t hi, Pred &&pred) {
+    while (lo < hi) {
+        const int64_t mid = lo + (hi - lo + 1) / 2;
+        if (pred(mid))
+            lo = mid;
+        else
+            hi = mid - 1;
+    }
+    return lo;
+}
+
+}  // namespace
 
 int deadline_share(double own_factor, double other_factor, int64_t rounds, double own_fallback,
                    double other_fallback, double surplus, bool own_opens, double *out,
@@ -307,83 +368,138 @@ int deadline_share(double own_factor, double other_factor, int64_t rounds, doubl
     if (!c.ok()) return invalid(c, out, bad);
     if (rounds == 0) return status_only(CTO_E_NO_DEAL, own_fallback, out, bad);
 
-    const double S = surplus;
-    const double d[2] = {own_opens ? own_factor : other_factor,
-                         own_opens ? other_factor : own_factor};  // [A, B], A opens
+    Deadline g;
+    g.S = surplus;
+    g.d[0] = own_opens ? own_factor : other_factor;
+    g.d[1] = own_opens ? other_factor : own_factor;
+    g.ld[0] = log_factor(g.d[0]);
+    g.ld[1] = log_factor(g.d[1]);
+    g.omA = 1.0 - g.d[0];
+    g.omB = 1.0 - g.d[1];
+    g.one_minus_q = rub_den(g.d[0], g.omA, g.omB);
+    g.log_q = std::log1p(-g.one_minus_q);
     const double b[2] = {own_opens ? own_fallback : other_fallback,
                          own_opens ? other_fallback : own_fallback};
     const int own = own_opens ? 0 : 1;
-    auto proposer = [](int64_t t) { return (t % 2 == 1) ? 0 : 1; };  // A in odd rounds
+    const double S = surplus;
 
     // Round T.
     int64_t t = rounds;
-    double v[2];  // values of A and B at the date of round t
-    int P = proposer(t), R = 1 - P;
-    bool ever;    // agreement somewhere on the path from round t
-    bool agreed;  // (weak) agreement in round t
-    if (S - b[R] > b[P]) {
-        v[P] = S - b[R];
+    double v[2];   // values of A and B at the date of round t
+    bool agreed;   // (weak) agreement in round t
+    bool ever;     // a strict gain from agreement somewhere on the path from round t
+    {
+        const int P = Deadline::proposer(t), R = 1 - P;
+        agreed = ever = exceeds(S, b[R], b[P]);
+        v[P] = agreed ? S - b[R] : b[P];
         v[R] = b[R];
-        ever = agreed = true;
-    } else {
-        v[P] = b[P];
-        v[R] = b[R];
-        ever = agreed = false;
     }
-    int64_t steps = 0;
-    while (t > 1) {
-        if (agreed && v[0] >= 0.0 && v[1] >= 0.0 && S >= 0.0) break;  // absorbing
-        if (!agreed && !ever && v[0] >= 0.0 && v[1] >= 0.0 && S <= 0.0) {
-            // Nothing to gain in any earlier round: the deadline payoffs, discounted.
-            const double m = static_cast<double>(t - 1);
-            const double val = v[own] * pow_count(log_factor(d[own]), m);
-            if (!std::isfinite(val)) return invalid_at(5, out, bad);
-            return status_only(CTO_E_NO_DEAL, val, out, bad);
-        }
-        if (++steps > kDeadlineSteps) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
+    // One explicit round back: t -> t - 1.
+    auto step = [&] {
         --t;
-        P = proposer(t);
-        R = 1 - P;
-        const double cR = d[R] * v[R];  // responder's value of rejecting
-        const double cP = d[P] * v[P];  // proposer's value of a rejected offer
+        const int P = Deadline::proposer(t), R = 1 - P;
+        const double cR = g.d[R] * v[R], cP = g.d[P] * v[P];
         const bool strict = S - cR > cP;
         agreed = S - cR >= cP;
         v[P] = agreed ? S - cR : cP;
         v[R] = cR;
         ever = ever || strict;
-        if (!std::isfinite(v[0]) || !std::isfinite(v[1])) return invalid_at(5, out, bad);
-    }
-    if (t == 1) {
-        const int st = ever ? CTO_OK : CTO_E_NO_DEAL;
-        if (!std::isfinite(v[own])) return invalid_at(5, out, bad);
-        return status_only(st, v[own], out, bad);
-    }
-
-    // Absorbing phase from round t >= 2: F_t = v[P_t], F_{t-1} = S - d_{P_t} F_t.
-    const double Ft = v[proposer(t)];
-    const double Ft1 = S - d[proposer(t)] * Ft;
-    const double omA = 1.0 - d[0], omB = 1.0 - d[1];
-    const double one_minus_q = rub_den(d[0], omA, omB);
-    const double log_q = std::log1p(-one_minus_q);
-    // F at round r (r >= 1) from F at round s >= r with the same parity (proposer X):
-    // F_r = F*_X + q^((s - r)/2) (F_s - F*_X),  F*_X = S (1 - d_Y)/(1 - q).
-    auto back = [&](int64_t s, double Fs, int64_t r) {
-        const double m = static_cast<double>((s - r) / 2);
-        if (one_minus_q == 0.0) return Fs;  // both factors 1: the values just alternate
-        const int X = proposer(r);
-        const double star = rub_opener(S, X == 0 ? omB : omA, one_minus_q);
-        return star + pow_count(log_q, m) * (Fs - star);
     };
-    const int64_t t_odd = (t % 2 == 1) ? t : t - 1;
-    const int64_t t_even = (t % 2 == 0) ? t : t - 1;
-    const double F1 = back(t_odd, t_odd == t ? Ft : Ft1, 1);  // A proposing in round 1
-    const double F2 = back(t_even, t_even == t ? Ft : Ft1, 2);  // B proposing in round 2
-    const double vA = F1, vB = d[1] * F2;
-    // Strict agreement in round 1 (a gain over waiting), when none was seen later.
-    if (!ever) ever = F1 > d[0] * (S - F2);
-    const double val = own == 0 ? vA : vB;
-    if (!std::isfinite(val)) return invalid_at(5, out, bad);
-    return status_only(ever ? CTO_OK : CTO_E_NO_DEAL, val, out, bad);
+    auto done = [&](double value, bool deal) {
+        if (!std::isfinite(value)) return invalid_at(5, out, bad);
+        return status_only(deal ? CTO_OK : CTO_E_NO_DEAL, value, out, bad);
+    };
+
+    for (int phase = 0; t > 1; ++phase) {
+        if (phase > kDeadlinePhases) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
+        if (!std::isfinite(v[0]) || !std::isfinite(v[1])) return invalid_at(5, out, bad);
+        if (agreed) {
+            const double Ft = v[Deadline::proposer(t)];
+            // First round r < t (counting down) where agreement fails; 0 if none.  Rounds of
+            // each parity are monotone in m, so each class is bisected on its own.
+            int64_t r_fail = 0;
+            const bool absorbing = v[0] >= 0.0 && v[1] >= 0.0 && S >= 0.0;
+            if (!absorbing) {
+                for (int64_t first = t - 1; first >= t - 2 && first >= 1; --first) {
+                    // rounds r = first, first - 2, ...: agreement after F at r + 1
+                    auto ok_at = [&](int64_t m) {
+                        const int64_t r = first - 2 * m;
+                        return g.agrees_after(r, g.F_at(t, Ft, r + 1));
+                    };
+                    if (!ok_at(0)) {
+                        r_fail = std::max(r_fail, first);
+                        continue;
+                    }
+                    const int64_t m_max = (first - 1) / 2;
+                    if (ok_at(m_max)) continue;  // agreement all the way down this class
+                    const int64_t m_ok = last_true(0, m_max, ok_at);
+                    r_fail = std::max(r_fail, first - 2 * (m_ok + 1));
+                }
+            }
+            if (r_fail == 0) {
+                // Agreement in every round down to round 1.
+                const double F1 = g.F_at(t, Ft, 1);
+                const double F2 = t >= 2 ? g.F_at(t, Ft, 2) : S - F1;
+                if (!ever) ever = F1 > g.d[0] * (S - F2);  // a strict gain in round 1
+                return done(own == 0 ? F1 : g.d[1] * F2, ever);
+            }
+            // Jump to round r_fail + 1 (still agreeing), then take the refusing round.
+            const int64_t r1 = r_fail + 1;
+            if (r1 < t) {
+                const double F = g.F_at(t, Ft, r1);
+                const int P = Deadline::proposer(r1);
+                v[P] = F;
+                v[1 - P] = S - F;
+                t = r1;
+            }
+            step();
+        } else {
+            if (v[0] >= 0.0 && v[1] >= 0.0 && S <= 0.0) {
+                // Nothing to gain in any earlier round: the deadline payoffs, discounted.
+                return done(g.disc(own, v[own], static_cast<double>(t - 1)), ever);
+            }
+            // Agreement returns at round t - k for the first k >= 1 with
+            // gap(k) = S - d_A^k v_A - d_B^k v_B >= 0.
+            const double vA = v[0], vB = v[1];
+            auto gap = [&](int64_t k) {
+                const double kk = static_cast<double>(k);
+                return S - g.disc(0, vA, kk) - g.disc(1, vB, kk);
+            };
+            const int64_t K = t - 1;
+            int64_t k = -1;
+            if (gap(1) >= 0.0) {
+                k = 1;
+            } else if (K > 1) {
+                // The first difference changes sign at most once: split at its turn.
+                auto rising = [&](int64_t j) { return gap(j + 1) >= gap(j); };
+                const bool r0 = rising(1);
+                int64_t turn = K;
+                if (K > 2 && rising(K - 1) != r0)
+                    turn = last_true(1, K - 1, [&](int64_t j) { return rising(j) == r0; }) + 1;
+                // Piece 1 is [1, turn]; piece 2 is [turn, K]; gap(1) < 0.
+                auto first_nonneg = [&](int64_t lo, int64_t hi) {  // gap increasing on [lo, hi]
+                    if (gap(hi) < 0.0) return int64_t(-1);
+                    return last_true(lo, hi, [&](int64_t j) { return gap(j) < 0.0; }) + 1;
+                };
+                if (r0) {
+                    k = first_nonneg(1, turn);  // increasing first; then decreasing, stays below
+                } else if (turn < K) {
+                    k = first_nonneg(turn, K);  // decreasing first (stays below), then increasing
+                }
+            }
+            if (k < 0) {
+                // No agreement in any earlier round: round-1 values are discounted.
+                return done(g.disc(own, v[own], static_cast<double>(K)), ever);
+            }
+            // Rounds t-1 .. t-k+1 refuse; jump to round t - k + 1, then take round t - k.
+            const double kk = static_cast<double>(k - 1);
+            v[0] = g.disc(0, vA, kk);
+            v[1] = g.disc(1, vB, kk);
+            t -= k - 1;
+            step();
+        }
+    }
+    return done(v[own], ever);
 }
 
 // ---------------------------------------------------------------------------
@@ -456,7 +572,7 @@ int nash_share(double own_fallback, double other_fallback, double own_weight, do
     const double bo = own_fallback, bt = other_fallback, tau = own_weight;
     const double Sp = surplus - bo - bt;
     if (!std::isfinite(Sp)) return invalid_at(3, out, bad);
-    if (!(Sp > 0.0)) return status_only(CTO_E_NO_DEAL, bo, out, bad);
+    if (!exceeds(surplus, bo, bt)) return status_only(CTO_E_NO_DEAL, bo, out, bad);
     if (!curved || tau == 0.0 || tau == 1.0) return finish(bo + tau * Sp, out, bad, 3);
     const double ao = own_curvature, at = other_curvature;
     if (bo == 0.0 && bt == 0.0) {  // closed form, REFERENCE s.7 (CRRA, d = 0)
@@ -563,7 +679,7 @@ int risk_averse_share(double own_factor, double other_factor, double own_curvatu
                               : party(own_factor, own_curvature, own_fallback);
     const double ndA = A.no_deal(), ndB = B.no_deal();
     if (!std::isfinite(ndA + ndB)) return invalid_at(8, out, bad);
-    if (!(S > ndA + ndB))
+    if (!exceeds(S, ndA, ndB))
         return status_only(CTO_E_NO_DEAL, own_opens ? ndA : ndB, out, bad);
     if (A.alpha == 1.0 && B.alpha == 1.0)
         return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
@@ -627,10 +743,11 @@ int group_share(double factor, int64_t parties, int64_t position, double surplus
     if (parties == 1) return status_only(CTO_OK, S, out, bad);
     if (factor == 1.0) return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
     if (factor == 0.0) return status_only(CTO_OK, position == 0 ? S : 0.0, out, bad);
-    // S d^k (1 - d) / (1 - d^n), with d^k = exp(k log d) and 1 - d^n = -expm1(n log d).
+    // S d^k (1 - d) / (1 - d^n): d^k by pow (within an ulp for whole k; exp(k log d) would
+    // amplify the rounding of log d k-fold), 1 - d^n = -expm1(n log d) (no cancellation).
     const double ld = log_factor(factor);
     const double den = -std::expm1(static_cast<double>(parties) * ld);
-    const double num = (1.0 - factor) * std::exp(static_cast<double>(position) * ld);
+    const double num = (1.0 - factor) * std::pow(factor, static_cast<double>(position));
     return finish(S * (num / den), out, bad, 3);
 }
 
