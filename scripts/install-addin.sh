@@ -11,9 +11,9 @@
 #
 # unopkg refuses to run as root unless it changes the office installation for all
 # users (--shared).  Run as root, this script therefore runs unopkg as the
-# unprivileged user "nobody" on the profile (handed to that user for the duration of
-# the call and given back afterwards), so root's own or a private profile is changed
-# and the office installation is not.
+# unprivileged user "nobody" on a copy of the profile in a folder nobody owns, and
+# copies the result back (owned as before), so root's own or a private profile is
+# changed and the office installation is not.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 export LC_ALL=C.UTF-8
@@ -55,22 +55,29 @@ run_unopkg() {
     "$UNOPKG" "${args[@]}"
     return
   fi
-  # As root: hand the profile (and a readable copy of the package) to nobody.
+  # As root: unopkg runs as nobody on a staged copy of the profile in a folder
+  # nobody owns; the result is copied back and given back to the profile's owner.
   local owner tmp rc=0
   owner="$(stat -c %u:%g "$profile")"
   tmp="$(mktemp -d)"
-  chmod 755 "$tmp"
+  mkdir -p "$tmp/home" "$tmp/profile"
+  cp -a "$profile/." "$tmp/profile/"
   if [ "$action" = add ]; then
     cp "$oxt" "$tmp/"
-    chmod 644 "$tmp/$(basename "$oxt")"
-    args=(add --force "$env_arg" "$tmp/$(basename "$oxt")")
+    args=(add --force "-env:UserInstallation=file://$tmp/profile" "$tmp/$(basename "$oxt")")
+  elif [ "$action" = remove ]; then
+    args=(remove "-env:UserInstallation=file://$tmp/profile" "$ID")
+  else
+    args=(list "-env:UserInstallation=file://$tmp/profile")
   fi
-  chown -R nobody:nogroup "$profile" "$tmp"
-  # nobody must be able to reach the profile: open the path's folders for traversal.
-  local d="$profile"
-  while [ "$d" != "/" ]; do d="$(dirname "$d")"; [ -x "$d" ] || chmod o+x "$d"; done
-  runuser -u nobody -- env HOME="$tmp" LC_ALL=C.UTF-8 "$UNOPKG" "${args[@]}" || rc=$?
-  chown -R "$owner" "$profile"
+  chmod 755 "$tmp"
+  chown -R nobody:nogroup "$tmp"
+  runuser -u nobody -- env HOME="$tmp/home" LC_ALL=C.UTF-8 "$UNOPKG" "${args[@]}" || rc=$?
+  if [ $rc -eq 0 ] && [ "$action" != list ]; then
+    find "$profile" -mindepth 1 -delete
+    cp -a "$tmp/profile/." "$profile/"
+    chown -R "$owner" "$profile"
+  fi
   rm -rf "$tmp"
   return $rc
 }
