@@ -208,6 +208,17 @@ def _choice_index(arg: ArgSpec, j: int, value: Any) -> Any:
     return value
 
 
+_EXACT_INT = 2**53  # every integer up to this passes through a double exactly
+
+
+def _check_exact_int(j: int, v: int) -> None:
+    """The library takes every argument as a double (cto_call, cto_call_strided): an
+    integer that a double cannot hold exactly would silently become another number."""
+    if int(float(v)) != v:
+        raise _Invalid(j, v, "an integer above 2**53 that a double cannot represent exactly; "
+                             "the library's table interface takes doubles")
+
+
 def _convert(spec: FunctionSpec, values: Sequence[Any]) -> Tuple[List[Any], Any, bool]:
     """Arguments -> (values for the ufunc, pandas index or None, all scalar)."""
     out: List[Any] = []
@@ -233,6 +244,16 @@ def _convert(spec: FunctionSpec, values: Sequence[Any]) -> Tuple[List[Any], Any,
             v = float(v)
         elif isinstance(v, str):
             raise _Invalid(j, v, "a number is required")
+        elif isinstance(v, (int, np.integer)):
+            if abs(int(v)) > _EXACT_INT:
+                _check_exact_int(j, int(v))
+        elif isinstance(v, (list, tuple)):
+            v = np.asarray(v)
+        if isinstance(v, np.ndarray) and v.dtype.kind in "iu" and v.size:
+            big = np.abs(v.astype(np.float64)) > _EXACT_INT
+            if big.any():
+                for w in v[big].ravel().tolist():
+                    _check_exact_int(j, int(w))
         if np.ndim(v) != 0:
             scalar = False
         out.append(v)
