@@ -1,0 +1,301 @@
+// The core against the 50-digit reference tables in tests/reference (written by
+// tests/reference/generate.py with mpmath from methods independent of the library's
+// closed forms: backward induction, root finding on the stationary conditions, numerical
+// maximisation and differentiation, enumeration; see tests/reference/README.md for each
+// table's method and published source).
+//
+// Every row is evaluated through the table-driven interface (cto_function_find + cto_call)
+// with all arguments as written in the table.  The status must match exactly; NaN is
+// expected exactly where the table says nan; otherwise the value must agree with the
+// 25-digit expected value to
+//   relative error <= 1e-15, or
+//   for the functions whose result is a sum of signed money terms (no-deal value plus a
+//   share of the surplus above it: breakdown, outside and inside options, solve, deadline,
+//   Nash, risk-averse; the stake in delay_cost; implied_factor, whose result is a
+//   fraction), when |expected| < scale: absolute error <= 1e-15 x scale, where scale is
+//   |surplus| (|stake| for delay_cost, 1 for implied_factor).
+// Integer outputs of solve (binding, rational) must match exactly.  Expected values below
+// the smallest normal double (DBL_MIN) are compared relative to DBL_MIN, since a double
+// result there has lost relative precision by gradual underflow.
+#include <catch2/catch.hpp>
+
+#include <cerrno>
+#include <cfloat>
+#include <cmath>
+#include <cstdlib>
+#include <fstream>
+#include <iomanip>
+#include <iostream>
+#include <map>
+#include <set>
+#include <sstream>
+#include <string>
+#include <vector>
+
+#include "counteroffer/counteroffer.h"
+
+#ifndef CTO_REFERENCE_DIR
+#error "CTO_REFERENCE_DIR must name the directory of the reference tables"
+#endif
+
+namespace {
+
+constexpr long double kTol = 1e-15L;
+
+struct Table {
+    std::string name;
+    std::vector<std::string> header;
+    std::vector<std::vector<std::string>> rows;  // fields of each data row
+    bool found = false;
+};
+
+// One CSV record; fields may be double-quoted (with "" for a quote), as Python's csv
+// module writes them.
+std::vector<std::string> split_csv(const std::string &line) {
+    std::vector<std::string> f;
+    std::string cur;
+    bool quoted = false;
+    for (size_t i = 0; i < line.size(); ++i) {
+        const char c = line[i];
+        if (quoted) {
+            if (c == '"') {
+                if (i + 1 < line.size() && line[i + 1] == '"') {
+                    cur += '"';
+                    ++i;
+                } else {
+                    quoted = false;
+                }
+            } else {
+                cur += c;
+            }
+        } else if (c == '"') {
+            quoted = true;
+        } else if (c == ',') {
+            f.push_back(cur);
+            cur.clear();
+        } else if (c != '\r') {
+            cur += c;
+        }
+    }
+    f.push_back(cur);
+    return f;
+}
+
+Table read_table(const std::string &name) {
+    Table t;
+    t.name = name;
+    std::ifstream in(std::string(CTO_REFERENCE_DIR) + "/" + name + ".csv");
+    if (!in) return t;
+    t.found = true;
+    std::string line;
+    if (std::getline(in, line)) t.header = split_csv(line);
+    while (std::getline(in, line)) {
+        if (line.empty()) continue;
+        t.rows.push_back(split_csv(line));
+    }
+    return t;
+}
+
+bool parse_double(const std::string &s, double *v) {
+    errno = 0;
+    char *end = nullptr;
+    *v = std::strtod(s.c_str(), &end);
+    return end != s.c_str() && *end == '\0';
+}
+
+bool parse_long_double(const std::string &s, long double *v) {
+    char *end = nullptr;
+    *v = std::strtold(s.c_str(), &end);
+    return end != s.c_str() && *end == '\0';
+}
+
+int status_code(const std::string &s) {
+    if (s == "ok") return CTO_OK;
+    if (s == "invalid") return CTO_E_INVALID;
+    if (s == "no_deal") return CTO_E_NO_DEAL;
+    if (s == "indeterminate") return CTO_E_INDETERMINATE;
+    if (s == "no_convergence") return CTO_E_NO_CONVERGENCE;
+    return -1;
+}
+
+// The argument whose magnitude sets the absolute tolerance near zero, or "" when the
+// function is held to relative error only; "1" means a scale of 1.
+std::string scale_argument(const std::string &fn) {
+    static const std::map<std::string, std::string> m = {
+        {"breakdown_share", "surplus"}, {"outside_option_share", "surplus"},
+        {"inside_option_share", "surplus"}, {"solve", "surplus"},
+        {"deadline_share", "surplus"}, {"nash_share", "surplus"},
+        {"risk_averse_share", "surplus"}, {"delay_cost", "stake"},
+        {"implied_factor", "1"}};
+    const auto it = m.find(fn);
+    return it == m.end() ? std::string() : it->second;
+}
+
+std::string row_text(const Table &t, size_t r) {
+    std::ostringstream os;
+    const auto &row = t.rows[r];
+    for (size_t j = 0; j < row.size() && j < t.header.size(); ++j) {
+        if (t.header[j] == "source") continue;
+        os << (j ? ", " : "") << t.header[j] << "=" << row[j];
+    }
+    return os.str();
+}
+
+struct Result {
+    size_t rows = 0;
+    long double worst = 0.0L;  // worst error used for the decision (relative, or abs/scale)
+    size_t worst_row = 0;
+    std::string worst_kind = "relative";
+    std::vector<std::string> failures;
+};
+
+Result check_table(const cto_function_info *f, const Table &t) {
+    Result res;
+    res.rows = t.rows.size();
+    const size_t na = static_cast<size_t>(f->n_args), no = static_cast<size_t>(f->n_outputs);
+    const std::string scale_arg = scale_argument(f->name);
+    size_t scale_col = na;
+    for (size_t j = 0; j < na; ++j)
+        if (scale_arg == f->args[j].name) scale_col = j;
+    for (size_t r = 0; r < t.rows.size(); ++r) {
+        const auto &row = t.rows[r];
+        std::ostringstream why;
+        if (row.size() != na + 2 + no) {
+            why << "has " << row.size() << " fields, expected " << (na + 2 + no);
+            res.failures.push_back("line " + std::to_string(r + 2) + ": " + why.str());
+            continue;
+        }
+        std::vector<double> args(na);
+        bool ok = true;
+        for (size_t j = 0; j < na; ++j) ok = ok && parse_double(row[j], &args[j]);
+        const int want_status = status_code(row[na]);
+        std::vector<long double> want(no);
+        for (size_t k = 0; k < no; ++k) ok = ok && parse_long_double(row[na + 1 + k], &want[k]);
+        if (!ok || want_status < 0) {
+            res.failures.push_back("line " + std::to_string(r + 2) + ": unreadable row: " + row_text(t, r));
+            continue;
+        }
+        std::vector<double> got(no, -12345.0);
+        int bad = -2;
+        const int st = cto_call(f->id, args.data(), got.data(), &bad);
+        long double scale = 0.0L;
+        if (scale_arg == "1") scale = 1.0L;
+        else if (scale_col < na) scale = std::fabs(static_cast<long double>(args[scale_col]));
+        bool row_ok = st == want_status;
+        if (!row_ok) why << "status " << cto_status_name(st) << ", expected " << row[na] << "; ";
+        for (size_t k = 0; k < no; ++k) {
+            const long double w = want[k];
+            const long double g = got[k];
+            const std::string oname = f->outputs[k].name;
+            const bool integer_output = oname == "binding" || oname == "rational";
+            if (std::isnan(w)) {
+                if (!std::isnan(g)) {
+                    row_ok = false;
+                    why << oname << " = " << std::setprecision(17) << got[k] << ", expected nan; ";
+                }
+                continue;
+            }
+            if (!std::isfinite(g)) {
+                row_ok = false;
+                why << oname << " = " << got[k] << ", expected " << row[na + 1 + k] << "; ";
+                continue;
+            }
+            if (integer_output) {
+                if (g != w) {
+                    row_ok = false;
+                    why << oname << " = " << got[k] << ", expected " << row[na + 1 + k] << "; ";
+                }
+                continue;
+            }
+            const long double diff = std::fabs(g - w);
+            // Below the smallest normal double a result cannot keep its relative
+            // precision (gradual underflow): the denominator is floored at DBL_MIN.
+            const long double den = std::fmax(std::fabs(w), static_cast<long double>(DBL_MIN));
+            long double err = diff / den;
+            std::string kind = "relative";
+            if (err > kTol && scale > 0.0L && std::fabs(w) < scale) {
+                err = diff / scale;  // absolute error in units of the scale
+                kind = "absolute/" + scale_arg;
+            }
+            if (err > res.worst || (r == 0 && k == 0)) {
+                if (err > res.worst) {
+                    res.worst = err;
+                    res.worst_row = r;
+                    res.worst_kind = kind + " (" + oname + ")";
+                }
+            }
+            if (!(err <= kTol)) {
+                row_ok = false;
+                why << oname << " = " << std::setprecision(17) << got[k] << ", expected "
+                    << row[na + 1 + k] << " (" << kind << " error " << std::setprecision(3)
+                    << static_cast<double>(err) << "); ";
+            }
+        }
+        if (!row_ok)
+            res.failures.push_back("line " + std::to_string(r + 2) + ": " + why.str() +
+                                   "inputs: " + row_text(t, r));
+    }
+    return res;
+}
+
+}  // namespace
+
+TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]") {
+    // Source: the catalogue (CATALOGUE.md) fixes names and argument order; the generator
+    // writes every argument with defaults filled in, then status, outputs and source.
+    size_t total = 0;
+    const size_t n = cto_function_count();
+    REQUIRE(n >= 20);
+    for (size_t i = 0; i < n; ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        REQUIRE(f != nullptr);
+        INFO("function " << f->name);
+        REQUIRE(cto_function_find(f->name) == f);
+        const Table t = read_table(f->name);
+        CHECK(t.found);
+        std::vector<std::string> want;
+        for (int j = 0; j < f->n_args; ++j) want.push_back(f->args[j].name);
+        want.push_back("status");
+        for (int k = 0; k < f->n_outputs; ++k) want.push_back(f->outputs[k].name);
+        want.push_back("source");
+        CHECK(t.header == want);
+        CHECK(t.rows.size() >= 100);
+        // every status the table uses is one of the five names
+        std::set<std::string> statuses;
+        for (const auto &row : t.rows)
+            if (row.size() > static_cast<size_t>(f->n_args)) statuses.insert(row[static_cast<size_t>(f->n_args)]);
+        for (const auto &s : statuses) CHECK(status_code(s) >= 0);
+        total += t.rows.size();
+    }
+    std::cout << "reference tables: " << total << " rows over " << n << " functions\n";
+    CHECK(total >= 2000);
+}
+
+TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[reference]") {
+    const size_t n = cto_function_count();
+    size_t total_fail = 0;
+    for (size_t i = 0; i < n; ++i) {
+        const cto_function_info *f = cto_function_find(cto_function_at(i)->name);
+        REQUIRE(f != nullptr);
+        const Table t = read_table(f->name);
+        if (!t.found || t.header.size() != static_cast<size_t>(f->n_args + f->n_outputs + 2)) {
+            FAIL_CHECK("table " << f->name << " missing or with a wrong header");
+            continue;
+        }
+        const Result r = check_table(f, t);
+        std::cout << std::left << std::setw(22) << f->name << std::right << std::setw(5) << r.rows
+                  << " rows, worst error " << std::setprecision(3) << std::scientific
+                  << static_cast<double>(r.worst) << std::defaultfloat << " " << r.worst_kind
+                  << " at line " << (r.worst_row + 2) << ", failures " << r.failures.size() << "\n";
+        size_t shown = 0;
+        for (const auto &msg : r.failures) {
+            if (shown++ < 12) std::cout << "  FAIL " << f->name << " " << msg << "\n";
+        }
+        if (r.failures.size() > 12)
+            std::cout << "  ... " << (r.failures.size() - 12) << " more failures in " << f->name << "\n";
+        INFO("function " << f->name << ": " << r.failures.size() << " rows outside tolerance");
+        CHECK(r.failures.empty());
+        total_fail += r.failures.size();
+    }
+    std::cout << "reference tables: " << total_fail << " rows outside tolerance\n";
+}
