@@ -413,7 +413,58 @@ int deadline_share(double own_factor, double other_factor, int64_t rounds, doubl
     for (int phase = 0; t > 1; ++phase) {
         if (phase > kDeadlinePhases) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
         if (!std::isfinite(v[0]) || !std::isfinite(v[1])) return invalid_at(5, out, bad);
-        if (agreed) {
+        // Which of the next two rounds agree (explicit look-ahead on a copy).
+        bool a1, a2 = false;
+        {
+            const int64_t t0 = t;
+            const double v0[2] = {v[0], v[1]};
+            const bool ag0 = agreed, ev0 = ever;
+            step();
+            a1 = agreed;
+            if (t > 1) {
+                step();
+                a2 = agreed;
+            }
+            t = t0;
+            v[0] = v0[0];
+            v[1] = v0[1];
+            agreed = ag0;
+            ever = ev0;
+        }
+        if (a1 && !agreed) {
+            step();  // agreement starts in the next round: take it, then run the phase
+            continue;
+        }
+        if (!a1 && a2 && t > 2) {
+            // Alternating phase: round t-1 refuses, round t-2 agrees, and so on in cycles of
+            // two rounds.  With X proposing in round t and Y in t-1, after j cycles
+            // v_Y = d_Y^(2j) v_Y(0) and v_X = S - v_Y; whether cycle j keeps the pattern is
+            // affine in d_Y^(2j), so the cycles that do are a prefix found by bisection.
+            const int X = Deadline::proposer(t), Y = 1 - X;
+            const double vY0 = v[Y];
+            const int64_t J = (t - 1) / 2;
+            auto cycle_ok = [&](int64_t j) {
+                const double y = g.disc(Y, vY0, static_cast<double>(2 * (j - 1)));
+                const double x = S - y;  // j >= 2
+                const bool refuse = S - g.d[X] * x < g.d[Y] * y;
+                const bool agree = S - g.d[Y] * (g.d[Y] * y) >= g.d[X] * (g.d[X] * x);
+                return refuse && agree;
+            };
+            int64_t jstar = 1;
+            if (J >= 2 && cycle_ok(2)) jstar = last_true(2, J, cycle_ok);
+            // Take cycle 1 explicitly (it uses v_X(0)), then jump the rest.
+            step();
+            step();
+            if (jstar > 1) {
+                const double y = g.disc(Y, v[Y], static_cast<double>(2 * (jstar - 1)));
+                v[Y] = y;
+                v[X] = S - y;
+                t -= 2 * (jstar - 1);
+                agreed = true;  // cycle 1, taken explicitly, already recorded any strict gain
+            }
+            continue;
+        }
+        if (agreed && a1) {
             const double Ft = v[Deadline::proposer(t)];
             // First round r < t (counting down) where agreement fails; 0 if none.  Rounds of
             // each parity are monotone in m, so each class is bisected on its own.
