@@ -1,0 +1,65 @@
+"""dask.array on the local (synchronous and threaded) schedulers: the same results as
+NumPy, chunk by chunk, with the error policy applied per chunk.
+
+Reference: the NumPy evaluation of the same function, itself checked against the
+published formulas in test_models.py; and Rubinstein (1982) main theorem written here.
+"""
+
+import dask
+import dask.array as da
+import numpy as np
+import pytest
+
+import counteroffer as co
+
+
+@pytest.mark.parametrize("scheduler", ["synchronous", "threads"])
+def test_share_chunk_by_chunk(scheduler):
+    rng = np.random.default_rng(7)
+    d1 = rng.uniform(0, 0.999, (400, 30))
+    d2 = rng.uniform(0, 0.999, 30)
+    S = rng.uniform(1, 1e6, (400, 1))
+    x = da.from_array(d1, chunks=(57, 11))
+    lazy = co.share(x, d2, surplus=S)
+    assert isinstance(lazy, da.Array) and lazy.dtype == np.float64
+    with dask.config.set(scheduler=scheduler):
+        got = lazy.compute()
+    np.testing.assert_array_equal(got, co.share(d1, d2, surplus=S))
+    # Rubinstein (1982): S (1 - d2)/(1 - d1 d2)
+    np.testing.assert_allclose(got, S * (1 - d2) / (1 - d1 * d2), rtol=1e-12)
+    # each block equals the NumPy result on that block's slice
+    for idx in [(0, 0), (3, 2), (7, 2)]:
+        block = lazy.blocks[idx].compute(scheduler=scheduler)
+        r0, c0 = idx[0] * 57, idx[1] * 11
+        want = co.share(d1[r0:r0 + 57, c0:c0 + 11], d2[c0:c0 + 11], surplus=S[r0:r0 + 57])
+        np.testing.assert_array_equal(block, want)
+
+
+def test_error_policy_applies_at_compute_time_with_the_callers_settings():
+    d1 = da.from_array(np.array([0.5, 0.6, 1.5, 0.7]), chunks=2)
+    lazy = co.share(d1, 0.9)
+    with pytest.raises(ValueError, match="own_factor = 1.5 is invalid"):
+        lazy.compute(scheduler="synchronous")
+    with co.errstate(invalid="ignore"):
+        lazy2 = co.share(d1, 0.9)  # the policy in force when the graph is built
+    got = lazy2.compute(scheduler="synchronous")
+    assert np.isnan(got[2]) and not np.isnan(got[[0, 1, 3]]).any()
+
+
+def test_solve_over_dask_gives_a_mapping_of_dask_arrays():
+    d1 = da.from_array(np.linspace(0.1, 0.9, 9), chunks=4)
+    res = co.solve(d1, 0.9, other_outside=0.3)
+    assert isinstance(res["own_share"], da.Array)
+    want = co.solve(np.linspace(0.1, 0.9, 9), 0.9, other_outside=0.3)
+    for k in want:
+        np.testing.assert_array_equal(res[k].compute(scheduler="synchronous"), want[k])
+
+
+def test_raw_ufunc_works_with_dask_unchanged():
+    # The underlying object is a real numpy ufunc, so dask dispatches it natively
+    # (no error policy on this path: the raw ufunc is documented as such).
+    d1 = da.from_array(np.linspace(0.1, 0.9, 9), chunks=4)
+    raw = co.share.ufunc(d1, 0.5, 1.0, 1.0)
+    assert isinstance(raw, da.Array)
+    np.testing.assert_array_equal(raw.compute(scheduler="synchronous"),
+                                  co.share(np.linspace(0.1, 0.9, 9), 0.5))
