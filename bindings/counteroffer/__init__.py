@@ -15,7 +15,8 @@ Arrays
     Every function is a NumPy ufunc underneath: scalars give a Python float, any mix of
     scalars, lists and arrays broadcasts, ``out=`` works, results are float64, a pandas
     Series gives a Series with its index, dask arrays give lazy dask arrays.  The loops
-    run in C with the GIL released.
+    run in C with the GIL released; long arrays are split over a few threads
+    (``set_num_threads``).
 
 Errors
     See ``errstate``: invalid input raises ``ValueError`` naming the argument and its
@@ -101,9 +102,38 @@ __all__: List[str] = [s.name for s in catalogue] + [
     "errstate",
     "geterr",
     "seterr",
+    "set_num_threads",
+    "get_num_threads",
     "status_name",
     "status_message",
 ] + sorted(r.__name__ for r in (getattr(f, "Result", None) for f in _functions.values()) if r)
+
+
+def set_num_threads(n: int) -> int:
+    """Threads one call may use for a long array (default: the CPU count, at most 8;
+    the environment variable COUNTEROFFER_NUM_THREADS sets it at import).  Loops are
+    split only above 32768 elements.  Returns the previous setting."""
+    return _core.set_num_threads(int(n))
+
+
+def get_num_threads() -> int:
+    """Threads one call may use for a long array (see set_num_threads)."""
+    return _core.get_num_threads()
+
+
+def _threads_from_environment() -> None:
+    import os
+
+    text = os.environ.get("COUNTEROFFER_NUM_THREADS", "").strip()
+    if text:
+        try:
+            set_num_threads(int(text))
+        except ValueError:
+            raise ImportError(f"COUNTEROFFER_NUM_THREADS = {text!r} is invalid "
+                              "(a whole number, at least 1)") from None
+
+
+_threads_from_environment()
 
 
 def status_name(status: int) -> str:

@@ -48,6 +48,8 @@ __all__ = [
     'errstate',
     'geterr',
     'seterr',
+    'set_num_threads',
+    'get_num_threads',
     'status_name',
     'status_message',
     'SolveResult',
@@ -87,6 +89,8 @@ def errstate(
     internal: Optional[_Action] = None,
 ) -> Any: ...
 def status_name(status: int) -> str: ...
+def set_num_threads(n: int) -> int: ...
+def get_num_threads() -> int: ...
 def status_message(status: int) -> str: ...
 
 class ArrayResult(Mapping[str, Any]):

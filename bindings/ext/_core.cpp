@@ -10,7 +10,8 @@
 // argument, are added to a thread-local tally that the Python layer resets before
 // and reads after each ufunc call, to apply its error policy once per call.
 // NumPy runs a ufunc's inner loop on the calling thread, so a thread-local tally
-// belongs to exactly one call at a time.
+// belongs to exactly one call at a time.  A long loop is split over a few threads
+// (set_num_threads); their reports are merged into the calling thread's tally.
 #include <Python.h>
 
 #include <pybind11/pybind11.h>
@@ -19,10 +20,13 @@
 #include <numpy/arrayobject.h>
 #include <numpy/ufuncobject.h>
 
+#include <algorithm>
 #include <array>
+#include <atomic>
 #include <cfenv>
 #include <cstring>
 #include <string>
+#include <thread>
 #include <vector>
 
 #include "counteroffer/counteroffer.h"
@@ -47,6 +51,32 @@ struct LoopData {
     int nout;
 };
 
+// Worker threads per ufunc call (the library is stateless and thread-safe, so a long
+// loop is split into contiguous pieces, one per thread, and their reports merged).
+std::atomic<int> g_threads{1};
+constexpr size_t kMinPerThread = size_t{1} << 15;  // below this a thread costs more than it saves
+
+struct Piece {
+    size_t start = 0;
+    size_t n = 0;
+    int rc = CTO_OK;
+    cto_batch_report rep{};
+};
+
+void run_piece(const LoopData *d, char **args, const npy_intp *steps, const ptrdiff_t *as,
+               const ptrdiff_t *os, signed char *st, ptrdiff_t ss, Piece &p) noexcept {
+    std::array<const char *, kMaxOperands> a{};
+    std::array<char *, kMaxOperands> o{};
+    const ptrdiff_t start = static_cast<ptrdiff_t>(p.start);
+    for (int j = 0; j < d->nin; ++j) a[static_cast<size_t>(j)] = args[j] + start * steps[j];
+    for (int k = 0; k < d->nout; ++k)
+        o[static_cast<size_t>(k)] = args[d->nin + k] + start * steps[d->nin + k];
+    std::memset(&p.rep, 0, sizeof p.rep);
+    p.rep.size = sizeof p.rep;
+    p.rc = cto_call_strided(d->id, p.n, a.data(), as, o.data(), os, st ? st + start * ss : nullptr,
+                            ss, &p.rep);
+}
+
 // Shared body of both loops; `with_status` adds the int8 status operand.
 template <bool with_status>
 void inner_loop(char **args, const npy_intp *dims, const npy_intp *steps, void *data) {
@@ -62,29 +92,49 @@ void inner_loop(char **args, const npy_intp *dims, const npy_intp *steps, void *
         st = reinterpret_cast<signed char *>(args[d->nin + d->nout]);
         ss = steps[d->nin + d->nout];
     }
-    cto_batch_report rep;
-    std::memset(&rep, 0, sizeof rep);
-    rep.size = sizeof rep;
-    const int rc = cto_call_strided(d->id, n, args, as.data(), args + d->nin, os.data(), st, ss,
-                                    &rep);
+    size_t pieces = static_cast<size_t>(std::max(1, g_threads.load(std::memory_order_relaxed)));
+    pieces = std::max<size_t>(1, std::min(pieces, n / kMinPerThread));
+    std::vector<Piece> part(pieces);
+    for (size_t p = 0; p < pieces; ++p) {
+        part[p].start = n * p / pieces;
+        part[p].n = n * (p + 1) / pieces - part[p].start;
+    }
+    std::vector<std::thread> workers;
+    workers.reserve(pieces - 1);
+    size_t inline_from = 1;
+    for (size_t p = 1; p < pieces; ++p) {
+        try {
+            workers.emplace_back(run_piece, d, args, steps, as.data(), os.data(), st, ss,
+                                 std::ref(part[p]));
+            inline_from = p + 1;
+        } catch (...) {  // no thread available: run the rest on this thread
+            break;
+        }
+    }
+    run_piece(d, args, steps, as.data(), os.data(), st, ss, part[0]);
+    for (size_t p = inline_from; p < pieces; ++p)
+        run_piece(d, args, steps, as.data(), os.data(), st, ss, part[p]);
+    for (std::thread &w : workers) w.join();
     // The library reports every problem through statuses; the floating-point flags its
     // arithmetic raises on the way (NaN compared, inf produced and rejected) carry no
     // information, and NumPy would turn them into RuntimeWarnings after the loop.
     std::feclearexcept(FE_ALL_EXCEPT);
     Tally &t = g_tally;
-    if (rc != CTO_OK) {  // a defect (bad id or pointer): count every element as internal
-        t.count[CTO_E_INTERNAL] += n;
-        return;
-    }
-    for (int s = 0; s < CTO_REPORT_SLOTS; ++s) t.count[s] += rep.count[s];
-    if (rep.count[CTO_E_INVALID] > 0 && t.bad_arg < 0 && rep.first_bad_arg >= 0 &&
-        rep.first_bad_arg < d->nin) {
-        const int j = rep.first_bad_arg;
-        const ptrdiff_t i = static_cast<ptrdiff_t>(rep.first_index[CTO_E_INVALID]);
-        double v;
-        std::memcpy(&v, args[j] + i * steps[j], sizeof v);
-        t.bad_arg = j;
-        t.bad_value = v;
+    for (const Piece &p : part) {
+        if (p.rc != CTO_OK) {  // a defect (bad id or pointer): every element is internal
+            t.count[CTO_E_INTERNAL] += p.n;
+            continue;
+        }
+        for (int s = 0; s < CTO_REPORT_SLOTS; ++s) t.count[s] += p.rep.count[s];
+        if (p.rep.count[CTO_E_INVALID] > 0 && t.bad_arg < 0 && p.rep.first_bad_arg >= 0 &&
+            p.rep.first_bad_arg < d->nin) {
+            const int j = p.rep.first_bad_arg;
+            const ptrdiff_t i = static_cast<ptrdiff_t>(p.start + p.rep.first_index[CTO_E_INVALID]);
+            double v;
+            std::memcpy(&v, args[j] + i * steps[j], sizeof v);
+            t.bad_arg = j;
+            t.bad_value = v;
+        }
     }
 }
 
@@ -216,6 +266,14 @@ PYBIND11_MODULE(_core, m) {
     m.def("catalogue", &catalogue, "the library's function table as a list of dicts");
     m.def("call", &call, py::arg("id"), py::arg("args"),
           "evaluate one catalogue function with every argument: (status, bad_arg, outputs)");
+    g_threads.store(static_cast<int>(std::max(1u, std::min(8u, std::thread::hardware_concurrency()))));
+    m.def("set_num_threads", [](int k) {
+        if (k < 1) throw py::value_error("set_num_threads: n = " + std::to_string(k) +
+                                         " is invalid (at least 1)");
+        return g_threads.exchange(k);
+    }, py::arg("n"), "threads per ufunc call for long loops; returns the previous number");
+    m.def("get_num_threads", [] { return g_threads.load(); },
+          "threads per ufunc call for long loops");
     m.def("tally_reset", &tally_reset, "clear this thread's status tally");
     m.def("tally_take", &tally_take,
           "this thread's status tally since the last reset: (counts, bad_arg, bad_value); "

@@ -291,3 +291,30 @@ def test_version_matches_header():
     parts = [re.search(rf"#define CTO_VERSION_{p} (\d+)", header).group(1)
              for p in ("MAJOR", "MINOR", "PATCH")]
     assert co.__version__ == ".".join(parts)
+
+
+@pytest.mark.parametrize("threads", [1, 2, 3])
+def test_long_loops_split_over_threads_report_like_one(threads):
+    # The statuses of a loop split over threads are merged: counts add, the first
+    # invalid element and its value are the first in array order.
+    old = co.set_num_threads(threads)
+    try:
+        n = 400_003
+        x = np.full(n, 0.9)
+        x[[250_000, 399_999]] = [7.0, 8.0]
+        x[300_000] = 1.0  # with other_factor 1: indeterminate
+        other = np.full(n, 0.5)
+        other[300_000] = 1.0
+        with pytest.raises(ValueError, match=r"own_factor = 7\.0 is invalid .* in 2 of 400003 "
+                                             r"elements \(first at index \(250000,\)\)"):
+            co.share(x, other)
+        with co.errstate(invalid="ignore"), pytest.warns(co.IndeterminateWarning,
+                                                         match="1 of 400003"):
+            got = co.share(x, other)
+        assert np.isnan(got[[250_000, 300_000, 399_999]]).all()
+        np.testing.assert_allclose(np.delete(got, [250_000, 300_000, 399_999]),
+                                   (1 - 0.5) / (1 - 0.9 * 0.5), rtol=1e-15)
+    finally:
+        co.set_num_threads(old)
+    with pytest.raises(ValueError):
+        co.set_num_threads(0)
