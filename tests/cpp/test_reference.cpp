@@ -299,3 +299,38 @@ TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[re
     }
     std::cout << "reference tables: " << total_fail << " rows outside tolerance\n";
 }
+
+TEST_CASE("reference checker: flags a value 1e-14 off, a wrong status and a missing NaN", "[reference]") {
+    // The checker itself must be able to fail: perturb copies of real rows.
+    const cto_function_info *f = cto_function_find("share");
+    REQUIRE(f != nullptr);
+    const Table t = read_table("share");
+    REQUIRE(t.found);
+    const size_t na = static_cast<size_t>(f->n_args);
+    size_t ok_row = t.rows.size(), nan_row = t.rows.size();
+    for (size_t r = 0; r < t.rows.size(); ++r) {
+        long double w = 0.0L;
+        if (t.rows[r][na] == "ok" && parse_long_double(t.rows[r][na + 1], &w) && w > 0.01L &&
+            ok_row == t.rows.size())
+            ok_row = r;
+        if (t.rows[r][na] == "indeterminate" && nan_row == t.rows.size()) nan_row = r;
+    }
+    REQUIRE(ok_row < t.rows.size());
+    REQUIRE(nan_row < t.rows.size());
+    Table one = t;
+    one.rows = {t.rows[ok_row]};
+    CHECK(check_table(f, one).failures.empty());
+    long double w = 0.0L;
+    REQUIRE(parse_long_double(one.rows[0][na + 1], &w));
+    std::ostringstream os;
+    os << std::setprecision(25) << w * (1.0L + 1e-14L);
+    one.rows[0][na + 1] = os.str();
+    CHECK(check_table(f, one).failures.size() == 1);
+    one.rows = {t.rows[ok_row]};
+    one.rows[0][na] = "no_deal";
+    CHECK(check_table(f, one).failures.size() == 1);
+    one.rows = {t.rows[nan_row]};
+    CHECK(check_table(f, one).failures.empty());
+    one.rows[0][na + 1] = "0.5";
+    CHECK(check_table(f, one).failures.size() == 1);
+}

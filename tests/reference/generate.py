@@ -10,7 +10,9 @@ inverse problems.  Inputs are exactly representable doubles: each is drawn as a 
 float and the expected value is computed for exactly that double (mp.mpf(float) is
 exact).  The seed is fixed, so the tables are reproducible.
 
-Run:  python3 tests/reference/generate.py      (needs mpmath; about 2-4 minutes)
+Run:  tests/reference/generate.sh   (the project venv's Python, or a scratch venv with
+      mpmath under build/ref; about 2 minutes).  generate.sh share solve ... rewrites
+      only the named tables (with different draws: the random stream is shared).
 
 The expected values are model values under the models' stated assumptions, not
 financial, legal or tax advice.  See tests/reference/README.md for each table's method
@@ -1439,9 +1441,11 @@ def gen_screening_profit():
 
 
 # ================================================================ main
-def write_tables():
+def write_tables(only=()):
     total = 0
     for fn, rows in ROWS.items():
+        if only and fn not in only:
+            continue   # a partial run leaves the other tables alone
         outs = SOLVE_OUTPUTS if fn == "solve" else ["value"]
         path = os.path.join(HERE, fn + ".csv")
         with open(path, "w", newline="") as fh:
@@ -1472,7 +1476,7 @@ def main():
             continue
         g()
         print("  %s: %.1f s" % (g.__name__, time.time() - t), file=sys.stderr)
-    total = write_tables()
+    total = write_tables(only)
     for fn, items in SKIPPED.items():
         print("skipped draws in %s: %d (%s)" % (fn, len(items), "; ".join(sorted(set(r for r, _ in items)))))
     for fn, c in NOTES.items():
