@@ -101,9 +101,11 @@ inline double rub_responder(double S, double d_resp, double om_open, double den)
     return S * d_resp * om_open / den;
 }
 
-// cto_share, inline because it is the hottest loop of the wrappers.
-inline int share(double own_factor, double other_factor, double surplus, bool own_opens,
-                 double *out, int *bad) {
+// The checks of the two-factor Rubinstein functions (share, first_mover_advantage):
+// returns a status when the outcome is decided (invalid, no deal, indeterminate), or -1
+// when the formula applies.
+inline int rub_prologue(double own_factor, double other_factor, double surplus, double *out,
+                        int *bad) {
     Check c;
     c.unit(own_factor, 0);
     c.unit(other_factor, 1);
@@ -112,6 +114,14 @@ inline int share(double own_factor, double other_factor, double surplus, bool ow
     if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
     if (own_factor == 1.0 && other_factor == 1.0)
         return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    return -1;
+}
+
+// cto_share, inline because it is the hottest loop of the wrappers.
+inline int share(double own_factor, double other_factor, double surplus, bool own_opens,
+                 double *out, int *bad) {
+    const int pre = rub_prologue(own_factor, other_factor, surplus, out, bad);
+    if (pre >= 0) return pre;
     const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
     double v;
     if (own_opens) {

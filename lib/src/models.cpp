@@ -255,34 +255,47 @@ int breakdown_share(double own_factor, double other_factor, double p, double own
     return solve_own(in, 5, out, bad);
 }
 
-int outside_option_share(double own_factor, double other_factor, double own_outside,
-                         double other_outside, double surplus, bool own_opens, double *out,
-                         int *bad) {
+namespace {
+// outside_option_share and inside_option_share: two factors, one money amount per side,
+// the surplus and who opens, validated in catalogue order; the amounts are walk-away
+// values (outside) or status-quo values (inside).
+int option_model(double own_factor, double other_factor, double own_amount,
+                 double other_amount, double surplus, bool own_opens, bool outside,
+                 double *out, int *bad) {
     Check c;
     c.unit(own_factor, 0);
     c.unit(other_factor, 1);
-    c.real(own_outside, 2);
-    c.real(other_outside, 3);
+    c.real(own_amount, 2);
+    c.real(other_amount, 3);
     c.real(surplus, 4);
     if (!c.ok()) return invalid(c, out, bad);
-    const SolveIn in{own_factor, other_factor, 0.0,         0.0,           0.0,      0.0,
-                     0.0,        own_outside,  other_outside, surplus, own_opens};
+    const SolveIn in{own_factor,
+                     other_factor,
+                     0.0,
+                     0.0,
+                     0.0,
+                     outside ? 0.0 : own_amount,
+                     outside ? 0.0 : other_amount,
+                     outside ? own_amount : -kInf,
+                     outside ? other_amount : -kInf,
+                     surplus,
+                     own_opens};
     return solve_own(in, 4, out, bad);
+}
+}  // namespace
+
+int outside_option_share(double own_factor, double other_factor, double own_outside,
+                         double other_outside, double surplus, bool own_opens, double *out,
+                         int *bad) {
+    return option_model(own_factor, other_factor, own_outside, other_outside, surplus,
+                        own_opens, true, out, bad);
 }
 
 int inside_option_share(double own_factor, double other_factor, double own_inside,
                         double other_inside, double surplus, bool own_opens, double *out,
                         int *bad) {
-    Check c;
-    c.unit(own_factor, 0);
-    c.unit(other_factor, 1);
-    c.real(own_inside, 2);
-    c.real(other_inside, 3);
-    c.real(surplus, 4);
-    if (!c.ok()) return invalid(c, out, bad);
-    const SolveIn in{own_factor, other_factor, 0.0,   0.0,     0.0,      own_inside,
-                     other_inside, -kInf,      -kInf, surplus, own_opens};
-    return solve_own(in, 4, out, bad);
+    return option_model(own_factor, other_factor, own_inside, other_inside, surplus,
+                        own_opens, false, out, bad);
 }
 
 // ---------------------------------------------------------------------------
@@ -594,14 +607,8 @@ int delay_cost(double factor, double stake, double p, double fallback, double *o
 
 int first_mover_advantage(double own_factor, double other_factor, double surplus, double *out,
                           int *bad) {
-    Check c;
-    c.unit(own_factor, 0);
-    c.unit(other_factor, 1);
-    c.real(surplus, 2);
-    if (!c.ok()) return invalid(c, out, bad);
-    if (!(surplus > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
-    if (own_factor == 1.0 && other_factor == 1.0)
-        return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
+    const int pre = rub_prologue(own_factor, other_factor, surplus, out, bad);
+    if (pre >= 0) return pre;
     const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
     const double v = surplus * om_own * om_oth / rub_den(own_factor, om_own, om_oth);
     return finish(v, out, bad, 2);
