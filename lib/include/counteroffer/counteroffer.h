@@ -263,16 +263,21 @@ CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out);
  *  Model (Stahl 1972; Gibbons 1992 s.2.1.D; REFERENCE s.3): proposers alternate,
  *  own proposes in round 1 when own_opens; if the last offer is rejected the
  *  parties get their deadline payoffs (valued at the date of the final rejection).
- *  Exact backward induction; when agreement holds from some round on, the
- *  remaining rounds are taken at once by the closed form
+ *  Exact backward induction.  In each round the proposer either offers the
+ *  responder its discounted value of going on or, when that leaves it less than its
+ *  own discounted value of waiting, makes an offer that is refused (delay can be an
+ *  equilibrium when payoffs are negative).  Runs of agreeing rounds follow
  *      x_{t-2m} = x* + q^m (x_t - x*),  q = d_own d_oth, q^m = exp(m log q),
- *  so the cost does not grow with `rounds` (up to 2^63 - 1).
+ *  runs of refused rounds only discount, and alternating runs repeat a two-round
+ *  map; each run is crossed at once by bisection, so the cost does not grow with
+ *  `rounds` (up to 2^63 - 1).
  *  rounds  count >= 0 (0: no bargaining);  fallbacks: deadline payoffs, money.
  *  Status: CTO_OK -> own's payoff (agreement in round 1, or later where delay is
  *          the equilibrium); CTO_E_NO_DEAL (no agreement in any round, or
  *          rounds = 0) -> own's discounted deadline payoff;
- *          CTO_E_NO_CONVERGENCE (a pathological pattern of delay that does not
- *          settle within 10^6 rounds) -> NaN; CTO_E_INVALID.
+ *          CTO_E_NO_CONVERGENCE (more than 256 changes between agreeing and
+ *          refusing runs, or every value below 2^-1000 so that rounding would decide)
+ *          -> NaN; CTO_E_INVALID.
  *  Accuracy: relative error < 1e-15 (plus 1e-16 x rounds x |log q| in q^m). */
 CTO_API int cto_deadline_share(double own_factor, double other_factor, int64_t rounds,
                                double own_fallback, double other_fallback,
