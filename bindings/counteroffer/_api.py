@@ -339,10 +339,10 @@ def _evaluate_array(spec: FunctionSpec, vals: List[Any], out: Any, index: Any) -
             error, warning = _classes(status_name)
             if action == "raise":
                 raise error(msg)
-            warnings.warn(msg + "; those results are NaN", warning, stacklevel=5)
+            warnings.warn(msg + "; those results are NaN", warning, stacklevel=4)
             continue
         msg = f"{counts[code]} of {total} elements: {_core.status_message(code)}"
-        _act(spec.name, status_name, msg, 6)
+        _act(spec.name, status_name, msg, 5)
     if len(spec.outputs) == 1:
         if index is not None:
             import pandas as pd  # type: ignore[import-untyped,unused-ignore]

@@ -318,3 +318,16 @@ def test_long_loops_split_over_threads_report_like_one(threads):
         co.set_num_threads(old)
     with pytest.raises(ValueError):
         co.set_num_threads(0)
+
+
+def test_warnings_point_at_the_callers_line():
+    # so that Python's once-per-location warning filters work on the user's code
+    with pytest.warns(co.NoDealWarning) as rec:
+        co.share(0.9, 0.9, surplus=-1.0)
+    assert rec[0].filename == __file__
+    with pytest.warns(co.NoDealWarning) as rec:
+        co.share([0.9], 0.9, surplus=-1.0)
+    assert rec[0].filename == __file__
+    with co.errstate(invalid="warn"), pytest.warns(co.InvalidArgumentWarning) as rec:
+        co.share([2.0], 0.9)
+    assert rec[0].filename == __file__
