@@ -8,6 +8,7 @@ ch.3; REFERENCE.md s.1).
 import inspect
 import math
 import threading
+import time
 import warnings
 
 import numpy as np
@@ -331,3 +332,32 @@ def test_warnings_point_at_the_callers_line():
     with co.errstate(invalid="warn"), pytest.warns(co.InvalidArgumentWarning) as rec:
         co.share([2.0], 0.9)
     assert rec[0].filename == __file__
+
+
+def test_the_loop_runs_with_the_gil_released():
+    # While one thread is inside a long share() loop, another thread keeps running
+    # Python code: with the GIL held, the main thread would stall for the whole loop.
+    x = np.random.default_rng(3).uniform(0, 0.99, 10_000_000)
+    old = co.set_num_threads(1)
+    started, gaps = threading.Event(), []
+    duration = []
+
+    def work():
+        started.set()
+        t = time.perf_counter()
+        co.share(x, 0.9)
+        duration.append(time.perf_counter() - t)
+
+    try:
+        th = threading.Thread(target=work)
+        th.start()
+        started.wait()
+        last = time.perf_counter()
+        while th.is_alive():
+            now = time.perf_counter()
+            gaps.append(now - last)
+            last = now
+        th.join()
+    finally:
+        co.set_num_threads(old)
+    assert max(gaps) < 0.5 * duration[0], (max(gaps), duration[0])
