@@ -404,7 +404,7 @@ def rho_of(rate, days, basis, cont):
 
 
 def rdays():
-    return RNG.choice([1 / 1440, 1 / 24, 1.0, 7.0, 30.0, 91.25, 365.0]) if RNG.random() < 0.5 else logu(1 / 1440, 730)
+    return RNG.choice([1 / 86400, 1 / 1440, 1 / 24, 1.0, 7.0, 30.0, 91.25, 365.0]) if RNG.random() < 0.5 else logu(1 / 1440, 730)
 
 
 def rrate():
@@ -1104,6 +1104,8 @@ def gen_risk_averse_share():
     while n < 150:
         util = RNG.randrange(2)
         dO, dT = rfactor(near1=0.1), rfactor(near1=0.1)
+        if RNG.random() < 0.1:
+            dO, dT = near_one_factor(), near_one_factor()
         if dO == 1.0 and dT == 1.0:
             continue
         if util == 0:
@@ -1215,7 +1217,8 @@ def gen_group_share():
                 method = "stationary linear system w_k = d^k w_0, sum w = S (geometric sum by binary doubling)"
         add(fn, [d, n, k, S], "ok", [+v], method + "; " + srcs)
         n_rows += 1
-    for d, n, k in ((0.2384073987281925, 25, 13), (0.09788532699269115, 25, 14), (0.5, 100, 99),
+    for d, n, k in ((1 - 1e-12, 10 ** 12, 0), (1 - 1e-12, 10 ** 12, 10 ** 12 - 1), (1 - 1e-9, 3, 2),
+                    (0.9999999999999999, 2, 1), (1 - 1e-6, 10 ** 6, 500000), (0.2384073987281925, 25, 13), (0.09788532699269115, 25, 14), (0.5, 100, 99),
                     (0.3, 1000, 600), (0.999, 1000, 999), (0.01, 60, 59), (0.75, 2 ** 53, 2 ** 52)):
         with mp.workdps(90):
             v = M(1.0) / geometric_sum(M(d), n) * mp.power(M(d), k)
@@ -1387,7 +1390,9 @@ def gen_share_sensitivity():
         else:
             g = lambda r: share_rates_mp(M(rO), r, days, S, opens, basis, cont)   # noqa: E731
             v = mp.diff(g, M(rT))
-        add(fn, [rO, rT, days, wrt, S, opens, basis, cont], "ok", [v], src)
+        # mp.diff resolves a derivative to about 1e-50 x surplus: below 1e-40 x surplus it
+        # is 0 (e.g. the share does not depend on other's rate when own's rate is 0)
+        add(fn, [rO, rT, days, wrt, S, opens, basis, cont], "ok", [snap(v, abs(M(S)))], src)
         n += 1
     for op in (0, 1):
         add(fn, [0.0, 0.0, 30.0, 0, 1.0, op, 365.0, 0], "indeterminate", [NAN], "both rates 0 (as share_from_rates)")
