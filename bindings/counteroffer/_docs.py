@@ -200,6 +200,15 @@ def build_doc(spec) -> str:  # type: ignore[no-untyped-def]
         )
         for name, help_ in spec.outputs:
             lines.append(_wrap(f"{name}: {help_}."))
+        from ._present import OUTPUT_BOOL, OUTPUT_CODES
+
+        for name, _h in spec.outputs:
+            if name in OUTPUT_CODES:
+                names = ", ".join(f"{k} {v!r}" for k, v in enumerate(OUTPUT_CODES[name]))
+                lines.append(_wrap(f"In the scalar result {name} is a name ({names}), or "
+                                   "None where it is undefined (NaN in arrays)."))
+            elif name in OUTPUT_BOOL:
+                lines.append(_wrap(f"In the scalar result {name} is a bool."))
     lines += ["", "Statuses", "--------", _wrap(spec.statuses + "."), "", _POLICY, ""]
     scenario, code = EXAMPLES.get(spec.name, (None, None))
     lines += ["Examples", "--------"]
