@@ -209,6 +209,7 @@ def _choice_index(arg: ArgSpec, j: int, value: Any) -> Any:
 
 
 _EXACT_INT = 2**53  # every integer up to this passes through a double exactly
+_PLAIN = frozenset({float, int, bool})
 
 
 def _check_exact_int(j: int, v: int) -> None:
@@ -382,6 +383,10 @@ def make_function(spec: FunctionSpec, doc: str) -> Callable[..., Any]:
     result_cls = _result_class(spec)
 
     def evaluate(values: Tuple[Any, ...], out: Any) -> Any:
+        # fast path: plain Python numbers only (no choice strings, no None, no arrays)
+        if out is None and all(type(v) in _PLAIN for v in values) and all(
+                type(v) is not int or -_EXACT_INT <= v <= _EXACT_INT for v in values):
+            return _evaluate_scalar(spec, list(values), values, result_cls)
         try:
             vals, index, scalar = _convert(spec, values)
         except _Invalid as e:
