@@ -54,10 +54,13 @@ class Office:
                 break
             except NoConnectException:
                 if self.proc.poll() is not None:
+                    self.log.close()
                     raise RuntimeError("soffice exited (status %s) before it accepted a "
                                        "connection" % self.proc.returncode)
                 if time.monotonic() - t0 > start_timeout:
                     self.proc.kill()
+                    self.proc.wait()
+                    self.log.close()
                     raise RuntimeError("soffice did not start within %.0f s" % start_timeout)
                 time.sleep(0.1)
         self.start_seconds = time.monotonic() - t0
@@ -99,6 +102,7 @@ class Office:
         except subprocess.TimeoutExpired:
             self.proc.kill()
             self.proc.wait()
+        self.log.close()
 
     def __enter__(self):
         return self
