@@ -388,7 +388,7 @@ def gen_share():
     for dO, dT, S, op in ((1.0, 0.9, 1.0, 1), (1.0, 0.9, 1.0, 0), (0.9, 1.0, 1.0, 1), (0.9, 1.0, 1.0, 0),
                           (0.0, 0.0, 1.0, 1), (0.0, 0.0, 1.0, 0), (0.0, 0.7, 5.0, 1), (0.7, 0.0, 5.0, 0),
                           (0.5, 0.5, 0.0, 1), (0.9, 0.8, -3.0, 0), (1.0, 0.999999999, 1e12, 0),
-                          (0.999999999, 1.0, 1e-6, 1)):
+                          (0.999999999, 1.0, 1e-6, 1), (0.5, 0.5, 1.0, 1), (0.95, 0.9, 1.0, 1)):
         res = family_row(fn, Party(dO), Party(dT), 0, M(S), op, (M(0), M(0)))
         add(fn, [dO, dT, S, op], res[0], [res[1]], res[5] + "; " + SRC_RUB + "; REFERENCE s.12 edge")
     for op in (0, 1):
@@ -437,6 +437,13 @@ def gen_share_from_rates():
         add(fn, [rO, rT, days, S, opens, basis, cont], res[0], [res[1]],
             res[5] + " on d_i = exp(-rho_i) at 90 digits; Rubinstein (1982); Muthoo (1999) s.3.2")
         n += 1
+    for a in ([0.1, 0.05, 365.0, 1.0, 1, 365.0, 1], [0.1, 0.05, 36.5, 1.0, 1, 365.0, 1],
+              [0.1, 0.1, 365.0, 1.0, 1, 365.0, 1]):
+        with mp.workdps(90):
+            A, B = Party(0), Party(0)
+            A.d, B.d = mp.exp(-rho_of(a[0], a[2], a[5], 1)), mp.exp(-rho_of(a[1], a[2], a[5], 1))
+            res = alternating_reference(fn, A, B, 0, M(1.0), True, (M(0), M(0)))
+        add(fn, a, res[0], [res[1]], res[5] + " on d_i = exp(-rho_i); Rubinstein (1982); Muthoo (1999) s.3.2; REFERENCE s.11 case")
     for op in (0, 1):
         add(fn, [0.0, 0.0, 30.0, 1.0, op, 365.0, 0], "indeterminate", [NAN], "both rates 0 (REFERENCE s.12)")
         add(fn, [0.1, 0.05, 0.0, 1.0, op, 365.0, 1], "indeterminate", [NAN], "days = 0 (header: use limit_share)")
@@ -457,7 +464,7 @@ def gen_limit_share():
             rO, rT = [(0.0, 0.1), (0.1, 0.0), (1e-300, 1.0), (5.0, 5.0), (0.1, 0.05), (3e-8, 2.0)][i]
         if rO == 0 and rT == 0:
             continue
-        S = rsurplus()
+        S = rsurplus() if i >= 6 else 1.0
         with mp.workdps(120):
             dl = mp.mpf(10) ** -40
             dO, dT = mp.exp(-M(rO) * dl), mp.exp(-M(rT) * dl)
@@ -513,7 +520,8 @@ def gen_breakdown_share():
     for a in ([1.0, 1.0, 0.5, -0.3, -0.2, 0.0, 1], [1.0, 1.0, 0.1, 0.2, 0.1, 1.0, 1],
               [0.95, 0.9, 0.05, 0.2, 0.1, 1.0, 1], [0.9, 0.8, 1.0, 0.25, 0.5, 0.75, 1],
               [0.9, 0.8, 1.0, 0.25, 0.5, 0.75, 0], [1.0, 0.9, 0.0, 0.3, 0.3, 1.0, 1],
-              [0.9, 1.0, 0.0, 0.3, 0.3, 1.0, 0], [1.0, 1.0, 1e-12, 0.2, 0.1, 1.0, 1]):
+              [0.9, 1.0, 0.0, 0.3, 0.3, 1.0, 0], [1.0, 1.0, 1e-12, 0.2, 0.1, 1.0, 1],
+              [1.0, 1.0, 1.0, 0.2, 0.1, 1.0, 1]):
         dO, dT, p, bO, bT, S, op = a
         ndO, ndT = d0_of(dO, p, bO), d0_of(dT, p, bT)
         if p == 0:
@@ -693,6 +701,10 @@ def gen_first_mover_advantage():
         st = r1[0]
         add(fn, [dO, dT, S], st, [snap(r1[1] - r0[1], abs(M(S))) if st == "ok" else M(0)], src % r1[5])
         n += 1
+    for a in ([0.8, 0.8, 1.0], [math.exp(-0.1 / 12), math.exp(-0.05 / 12), 1000.0]):
+        r1 = family_row(fn, Party(a[0]), Party(a[1]), 0, M(a[2]), 1, (M(0), M(0)))
+        r0 = family_row(fn, Party(a[0]), Party(a[1]), 0, M(a[2]), 0, (M(0), M(0)))
+        add(fn, a, "ok", [r1[1] - r0[1]], src % r1[5] + "; REFERENCE s.10/s.11 case")
     add(fn, [1.0, 1.0, 1.0], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
     for a in ([NAN, 0.9, 1.0], [0.9, 1.01, 1.0], [0.9, 0.9, INF]):
         add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
@@ -1445,6 +1457,71 @@ def gen_screening_profit():
         add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
 
 
+# ================================================================ published check values
+# REFERENCE.md s.11 (15 significant digits there): the generator's own methods must
+# reproduce them.  (function, arguments, value, relative tolerance, REFERENCE row)
+PUBLISHED = [
+    ("share", [0.5, 0.5, 1.0, 1], 0.666666666666667, 1e-14, 9),
+    ("share_from_rates", [0.1, 0.05, 365.0, 1.0, 1, 365.0, 1], 0.350131861448953, 1e-14, 10),
+    ("share_from_rates", [0.1, 0.05, 36.5, 1.0, 1, 365.0, 1], 0.335001381935802, 1e-14, 11),
+    ("limit_share", [0.1, 0.05, 1.0], 0.333333333333333, 1e-14, 12),
+    ("share_from_rates", [0.1, 0.1, 365.0, 1.0, 1, 365.0, 1], 0.524979187478940, 1e-14, 13),
+    ("share", [0.95, 0.9, 1.0, 1], 0.689655172413793, 1e-14, 14),
+    ("fixed_cost_share", [0.2, 0.1, 1.0, 1], 0.1, 1e-14, 17),
+    ("fixed_cost_share", [0.1, 0.2, 1.0, 0], 0.9, 1e-14, 16),
+    ("fixed_cost_share", [20.0, 10.0, 1000.0, 1], 10.0, 1e-14, 19),
+    ("fixed_cost_share", [10.0, 20.0, 1000.0, 0], 990.0, 1e-14, 20),
+    ("breakdown_share", [1.0, 1.0, 0.1, 0.2, 0.1, 1.0, 1], 0.568421052631579, 1e-14, 33),
+    ("breakdown_share", [1.0, 1.0, 1.0, 0.2, 0.1, 1.0, 1], 0.9, 1e-14, 35),
+    ("breakdown_share", [0.95, 0.9, 0.05, 0.2, 0.1, 1.0, 1], 0.650500848431770, 1e-14, 36),
+    ("breakdown_share", [1.0, 1.0, 1e-12, 0.2, 0.1, 1.0, 1], 0.550000000000175, 1e-14, 82),
+    ("outside_option_share", [0.9, 0.9, 0.0, 0.3, 1.0, 1], 0.526315789473684, 1e-14, 40),
+    ("outside_option_share", [0.9, 0.9, 0.0, 0.5, 1.0, 1], 0.5, 1e-14, 42),
+    ("outside_option_share", [0.9, 0.9, 0.5, 0.0, 1.0, 1], 0.55, 1e-14, 44),
+    ("outside_option_share", [0.5, 0.5, 0.4, 0.4, 1.0, 1], 0.6, 1e-14, 46),
+    ("outside_option_share", [0.95, 0.9, 0.2, 0.45, 1.0, 1], 0.55, 1e-14, 48),
+    ("outside_option_share", [0.9, 0.95, 0.45, 0.2, 1.0, 0], 0.45, 1e-14, 48),
+    ("outside_option_share", [0.9, 0.9, 0.0, 0.9 / 1.9, 1.0, 1], 0.526315789473684, 1e-14, 50),
+    ("outside_option_share", [0.9, 0.9, 0.6, 0.5, 1.0, 1], 0.6, 1e-14, 83),
+    ("inside_option_share", [0.9, 0.9, 0.1, 0.3, 1.0, 1], 0.415789473684211, 1e-14, 51),
+    ("nash_share", [0.1, 0.2, 0.5, 1.0, 1.0, 1.0], 0.45, 1e-14, 54),
+    ("nash_share", [0.1, 0.2, 0.3, 1.0, 1.0, 1.0], 0.31, 1e-14, 55),
+    ("nash_share", [0.0, 0.0, 0.5, 1.0, 0.5, 1.0], 0.333333333333333, 1e-14, 56),
+    ("nash_share", [0.1, 0.2, 0.5, 1.0, 0.5, 1.0], 0.4, 1e-14, 57),
+    ("risk_averse_share", [0.9, 0.9, 0.5, 1.0, 0, 0.0, 0.0, 0.0, 1.0, 1], 0.369003690036900, 1e-14, 58),
+    ("risk_averse_share", [math.exp(-0.1), math.exp(-0.05), 2.0, 0.5, 1, 0.0, 0.0, 0.0, 1.0, 1], 0.324276325976081, 1e-14, 59),
+    ("group_share", [0.9, 3, 0, 1.0], 0.369003690036900, 1e-14, 61),
+    ("group_share", [0.9, 3, 2, 1.0], 0.298892988929889, 1e-14, 62),
+    ("group_share", [0.95, 5, 0, 1.0], 0.221024698128612, 1e-14, 63),
+    ("group_share", [0.95, 5, 4, 1.0], 0.180025998030117, 1e-14, 64),
+    ("majority_share", [0.9, 5, 3, 0, 1.0], 0.64, 1e-14, 65),
+    ("majority_share", [0.9, 5, 3, 1, 1.0], 0.18, 1e-14, 66),
+    ("majority_share", [0.95, 101, 51, 0, 1.0], 0.529702970297030, 1e-14, 67),
+    ("majority_share", [0.95, 101, 51, 1, 1.0], 0.00940594059405941, 1e-14, 68),
+    ("majority_share", [0.9, 5, 5, 0, 1.0], 0.28, 1e-14, 69),
+    ("screening_profit", [1.0, 0.5, 0.3, 0.9, 0.8], 0.5, 1e-14, 73),
+    ("screening_profit", [1.0, 0.5, 0.45, 0.9, 0.8], 0.5175, 1e-14, 71),
+    ("screening_profit", [1.0, 0.5, 0.8, 0.9, 0.8], 0.78, 1e-14, 72),
+    ("first_mover_advantage", [0.8, 0.8, 1.0], 0.111111111111111, 1e-14, "s.10 example"),
+    # the factors exp(-r/12) are rounded to doubles: 1e-13 covers that rounding
+    ("first_mover_advantage", [math.exp(-0.1 / 12), math.exp(-0.05 / 12), 1000.0], 2.77776974025657, 1e-13, 78),
+    ("share", [1.0, 0.9, 1.0, 1], 1.0, 1e-14, 79),
+    ("share", [0.9, 1.0, 1.0, 1], 0.0, 1e-14, 80),
+    ("share", [0.0, 0.0, 1.0, 1], 1.0, 1e-14, 81),
+]
+
+
+def check_published():
+    for fn, args, want, tol, ref in PUBLISHED:
+        if not ROWS[fn]:
+            continue   # a partial run
+        hits = [r for r in ROWS[fn] if r[0] == args and r[1] in ("ok", "no_deal")]
+        assert hits, ("published row missing", fn, args)
+        got = mp.mpf(hits[0][2][0])
+        assert abs(got - want) <= tol * max(abs(mp.mpf(want)), mp.mpf(1)), (fn, args, got, want, ref)
+    print("published check values reproduced: %d (REFERENCE s.11)" % len(PUBLISHED))
+
+
 # ================================================================ main
 def write_tables(only=()):
     total = 0
@@ -1481,6 +1558,7 @@ def main():
             continue
         g()
         print("  %s: %.1f s" % (g.__name__, time.time() - t), file=sys.stderr)
+    check_published()
     total = write_tables(only)
     for fn, items in SKIPPED.items():
         print("skipped draws in %s: %d (%s)" % (fn, len(items), "; ".join(sorted(set(r for r, _ in items)))))
