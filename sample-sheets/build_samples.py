@@ -323,8 +323,7 @@ def supply(office, path):
         (7, "Value of the renewed contract to both sides, present value (EUR m)", 48, MONEY),
         (8, "Our cost of capital (annual, effective)", 0.18, PCT),
         (9, "Their cost of capital (annual, effective)", 0.08, PCT),
-        (10, "Our status-quo income during the dispute, present value if it never ends "
-             "(EUR m)", 12, MONEY),
+        (10, "Our status-quo income during the dispute, present value (EUR m)", 12, MONEY),
         (11, "Their status-quo value during the dispute, present value (EUR m)", 15, MONEY),
         (12, "Our walk-away value: a contract with another buyer (EUR m)", 19, MONEY),
         (13, "Their walk-away value: a second-source supplier (EUR m)", 24, MONEY),
@@ -401,6 +400,10 @@ def supply(office, path):
         "Share without status-quo income (DEALOUTSIDE): Muthoo (1999) ch. 5. Per-round factor (1 + rate)^(-days/365) "
         "(DEALFACTOR; Muthoo 1999 s.3.2).",
         "First-mover advantage: our share opening minus responding in the same model (Rubinstein 1982; Muthoo 1999 ch. 3).",
+        "Status-quo values are the present value of what each side collects if the dispute never ends (a flow f at "
+        "rate r is worth f / r; Muthoo 1999 ch. 6).",
+        "'Ours' binds: when they open, they must offer us our walk-away value, so our share when they open equals it "
+        "and our share when we open follows from it.",
         "Muthoo (1999): Bargaining Theory with Applications, Cambridge University Press.",
     ])
     s.page(0)

@@ -145,6 +145,7 @@ def summary(rows):
         print("%-22s %8d %7d %6d %6d %5d %8d  %s" % (
             r["sheet"], r["formulas"], r["addin"], r["errors"], r["charts"], r["pages"],
             r["csv_rows"], keys))
+    print("(money amounts in EUR m, the sheets' unit; key results are the named cells key_*)")
 
 
 def main():

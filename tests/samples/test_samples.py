@@ -444,3 +444,23 @@ def test_formulas_kept_without_addin(office):
                     assert any(code == 525 for _, _, code, _ in errs), name
                 finally:
                     doc.close(True)
+
+
+# ---- 6. the main job fails loudly ----------------------------------------------------------
+def test_error_cell_is_reported(office, tmp_path):
+    """A sheet with an invalid input (negative days between offers: CATALOGUE.md, bad
+    input -> Err:502 in Calc) is refused, naming the sheet, the cell and the code."""
+    from office import prop, url
+    broken = str(tmp_path / "broken_synergy.fods")
+    doc = office.load(os.path.join(SAMPLES, "synergy_split.fods"))
+    try:
+        doc.Sheets.getByIndex(0).getCellRangeByName("C14").setValue(-5)
+        doc.storeToURL(url(broken), (prop("FilterName", "OpenDocument Spreadsheet Flat XML"),))
+    finally:
+        doc.close(True)
+    row, problems = run_samples.process(office, broken, str(tmp_path))
+    assert row["errors"] > 0
+    assert any("broken_synergy: Synergy split!C27 shows error 502" in p for p in problems), \
+        problems
+    # the dependent results are errors too, never numbers
+    assert any("!C20 shows error" in p for p in problems)
