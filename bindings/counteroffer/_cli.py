@@ -76,9 +76,7 @@ def _is_number(t: str) -> bool:
 
 
 def _fmt(x: float) -> str:
-    if math.isnan(x):
-        return ""
-    return repr(float(x))
+    return "" if x != x else repr(x)  # NaN (no value) -> empty cell
 
 
 class _Progress:
@@ -223,6 +221,7 @@ def _stream(spec: FunctionSpec, reader: Any, header: List[str], col_of: Dict[str
     out_names = [name for name, _h in spec.outputs]
     writer.writerow(header + ["status"] + out_names)
     status_ufunc = _core.status_ufuncs[spec.name]
+    names = {code: _core.status_name(code) for code in range(_core.REPORT_SLOTS)}
     counts: Dict[str, int] = {}
     reported = 0
     done = 0
@@ -250,11 +249,18 @@ def _stream(spec: FunctionSpec, reader: Any, header: List[str], col_of: Dict[str
             if len(row) != len(header):
                 errors[i] = (f"expected {len(header)} fields, found {len(row)}: "
                              f"{ns.delimiter.join(row)!r}")
-                cols[:, i] = math.nan
+        for j, arg in enumerate(spec.args):
+            c = col_of.get(arg.name)
+            if c is None:  # an optional column that is not there: its default
+                cols[j] = _default_double(spec, arg)
                 continue
-            for j, arg in enumerate(spec.args):
-                c = col_of.get(arg.name)
-                text = row[c] if c is not None else ""
+            texts = [row[c] if i not in errors else "nan" for i, (_l, row) in enumerate(rows)]
+            try:  # fast path: a column of plain numbers
+                cols[j] = np.array(texts, dtype=np.float64)
+                continue
+            except ValueError:
+                pass
+            for i, text in enumerate(texts):
                 if text.strip() == "":
                     if not arg.has_default:
                         errors.setdefault(i, f"column {arg.name} is empty (a value is required)")
@@ -268,10 +274,14 @@ def _stream(spec: FunctionSpec, reader: Any, header: List[str], col_of: Dict[str
                     errors.setdefault(i, f"column {arg.name} = {text!r} is invalid ({e}; "
                                          f"{arg.help})")
                     cols[j, i] = math.nan
+        for i in errors:
+            cols[:, i] = math.nan
         res = status_ufunc(*cols)
-        outs, status = res[:-1], res[-1]
+        status = res[-1].tolist()
+        outs = [o.tolist() for o in res[:-1]]
+        width = len(header)
         for i, (line, row) in enumerate(rows):
-            code = int(status[i])
+            code = status[i]
             if i in errors:
                 code = 1
                 report(done + i + 1, line, errors[i])
@@ -285,11 +295,15 @@ def _stream(spec: FunctionSpec, reader: Any, header: List[str], col_of: Dict[str
                            f"column {arg.name} = {shown!r} is invalid ({arg.help})")
                 else:
                     report(done + i + 1, line, f"invalid arguments ({_core.status_message(1)})")
-            name = _core.status_name(code)
+            name = names.get(code) or _core.status_name(code)
             counts[name] = counts.get(name, 0) + 1
-            values = ["" if code == 1 else _fmt(o[i]) for o in outs]
-            cells = (list(row) + [""] * len(header))[: len(header)]  # bad rows: reported above
-            writer.writerow(cells + [name] + values)
+            if code == 1:
+                values = [""] * len(outs)
+            else:
+                values = [_fmt(o[i]) for o in outs]
+            if len(row) != width:  # bad rows (reported above) keep the header's width
+                row = (row + [""] * width)[:width]
+            writer.writerow(row + [name] + values)
         done += n
         progress.update(done)
     return counts
