@@ -153,9 +153,10 @@ def _result_class(spec: FunctionSpec) -> Optional[type]:
 
 def _present_scalar(name: str, value: float) -> Any:
     if name in OUTPUT_CODES:
-        if math.isnan(value):
+        codes = OUTPUT_CODES[name]
+        if not (0 <= value < len(codes)) or value != int(value):  # NaN: undefined
             return None
-        return OUTPUT_CODES[name][int(value)]
+        return codes[int(value)]
     if name in OUTPUT_BOOL:
         return bool(value == 1.0)
     return float(value)
