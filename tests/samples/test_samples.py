@@ -216,6 +216,11 @@ def test_synergy_independent_references(book):
         assert close(c.v(col + "20"), x_open if opens else x_resp, rel=1e-11)
         assert close(c.v(col + "20") + c.v(col + "21"), S)
         assert close(c.v(col + "25"), x_open - x_resp, rel=1e-9, absolute=1e-10)
+        if c.s(col + "26") == "neither":
+            # the responder is offered exactly the value of waiting (BRW 1986; REFERENCE
+            # s.10), so the opener's loss from one round of delay is the first-mover
+            # advantage: p (x - w) + (1 - p)(1 - d) x = x - (p w + (1 - p) d x)
+            assert close(c.v(col + "23"), c.v(col + "25"), rel=1e-9)
         ref = rubinstein_rates(r_o, r_t, days, S, opens, basis)
         assert close(c.v(col + "29"), float(ref))
         h = mp.mpf("1e-20")
@@ -246,6 +251,15 @@ def test_synergy_best_candidate_moves(book):
     1982: the more impatient side gets less): our share with it rises and, raised far
     enough, it becomes the best candidate."""
     c = Cells(book("synergy_split.fods"))
+    # the highlight: a conditional format on the results block keyed to the largest share
+    cf = c.cell("B19:D22").ConditionalFormat
+    assert cf.getCount() == 1
+    entry = cf.getByIndex(0)
+    assert entry.StyleName == "CtoBest" and "MAX($B$20:$D$20)" in entry.Formula1
+    # the relative reference B$20 is read from the block's top-left cell B19, so the
+    # column of the largest share is the one highlighted
+    src = entry.getSourcePosition()
+    assert (src.Column, src.Row) == (1, 18) and entry.Formula1.startswith("B$20")
     assert c.s("B33") != "Norrvik Sensors"
     share0 = c.v("B20")
     c.set("B13", 0.40)
