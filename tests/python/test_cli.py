@@ -113,3 +113,21 @@ def test_console_script_on_a_large_file_shows_progress(tmp_path):
     assert len(rows) == n + 1
     assert float(rows[-1][3]) == pytest.approx(rubinstein(0.5 + 0.4 * (n - 1) / n, 0.9),
                                                rel=1e-14)
+
+
+def test_stdin_semicolons_and_python_dash_m():
+    text = "own_factor;other_factor;surplus\n0.5;0.5;3\n"
+    proc = subprocess.run([sys.executable, "-m", "counteroffer", "-f", "share", "-d", ";"],
+                          input=text, capture_output=True, text=True, timeout=120)
+    assert proc.returncode == 0, proc.stderr
+    rows = list(csv.reader(io.StringIO(proc.stdout), delimiter=";"))
+    assert rows[0] == ["own_factor", "other_factor", "surplus", "status", "value"]
+    assert float(rows[1][4]) == pytest.approx(rubinstein(0.5, 0.5, 3.0), rel=1e-15)
+
+
+def test_many_bad_rows_are_summarised_but_all_kept():
+    text = "own_factor,other_factor\n" + "2,0.5\n" * 80
+    code, out, err = run(["-f", "share", "--max-errors", "5"], text)
+    assert code == 1
+    assert len(list(csv.DictReader(io.StringIO(out)))) == 80
+    assert err.count("is invalid") == 5 and "more bad rows" in err and "80 invalid" in err
