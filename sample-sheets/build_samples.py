@@ -37,6 +37,7 @@ HOWTO = ("Yellow cells are inputs: change them and the sheet recalculates. Every
 
 CENTER = uno.Enum("com.sun.star.table.CellHoriJustify", "CENTER")
 RIGHT = uno.Enum("com.sun.star.table.CellHoriJustify", "RIGHT")
+OK_TEXT = "every input filled"
 MONEY = "#,##0.00"
 PCT = "0.0%"
 FACTOR = "0.000000"
@@ -75,6 +76,8 @@ class Sheet:
         rgb_style(self.doc, "CtoHeading", CharWeight=150.0, CharHeight=10.0, CellBackColor=GREY)
         rgb_style(self.doc, "CtoTitle", CharWeight=150.0, CharHeight=15.0, CharColor=NAVY)
         rgb_style(self.doc, "CtoNote", CharHeight=9.0)
+        rgb_style(self.doc, "CtoAlarm", CellBackColor=0xFFC7CE, CharColor=0x9C0006,
+                  CharWeight=150.0)
 
     def fmt(self, code):
         k = self.fmts.queryKey(code, self.locale, False)
@@ -135,6 +138,27 @@ class Sheet:
             self.put("A%d" % (row + 1 + i), text, style="CtoNote")
         self.put("A%d" % (row + 2 + len(lines)), CAUTION, style="CtoNote")
         return row + 2 + len(lines)
+
+    def input_check(self, row, blank_ranges, extra=None):
+        """A visible check that no input cell is empty (Calc 7.4 passes a single empty
+        cell to an add-in as 0: addin/README.md), named check_inputs; the main job
+        refuses a sheet whose check is not OK."""
+        blanks = "+".join("COUNTBLANK(%s)" % r for r in blank_ranges)
+        cond = "%s=0" % blanks
+        msg = '"an input cell is empty (Calc would read it as 0)"'
+        if extra:
+            formula = '=IF(%s;IF(%s;"%s";"%s");%s)' % (cond, extra[0], OK_TEXT, extra[1], msg)
+        else:
+            formula = '=IF(%s;"%s";%s)' % (cond, OK_TEXT, msg)
+        self.put("A%d" % row, "Input check")
+        c = self.put("B%d" % row, formula)
+        c.HoriJustify = RIGHT
+        self.name("check_inputs", "B%d" % row)
+        from com.sun.star.sheet.ConditionOperator import NOT_EQUAL
+        cf = c.ConditionalFormat
+        cf.addNew((prop("Operator", NOT_EQUAL), prop("Formula1", '"%s"' % OK_TEXT),
+                   prop("StyleName", "CtoAlarm")))
+        c.ConditionalFormat = cf
 
     def highlight(self, rng, formula):
         """Conditional format: `formula` (relative to rng's top-left) -> style Best."""
@@ -276,6 +300,7 @@ def synergy(office, path):
     s.put("B33", "=INDEX(B12:D12;MATCH(MAX(B20:D20);B20:D20;0))", style="CtoBest")
     s.put("A34", "Our share with the best candidate (EUR m)")
     s.put("B34", "=MAX(B20:D20)", MONEY)
+    s.input_check(35, ["B7:B10", "B12:D17"])
     s.highlight("B19:D22", "B$20=MAX($B$20:$D$20)")
     s.name("key_best_candidate", "B33")
     s.name("key_best_share", "B34")
@@ -289,7 +314,7 @@ def synergy(office, path):
     s.chart("delay", ["A19:D19", "A23:D24"], "F26", (15.5, 8.0), "BarDiagram",
             "Expected loss if agreement slips one round", "Candidate", "EUR m",
             rows=True)
-    s.notes(36, [
+    s.notes(37, [
         "Shares: alternating offers with breakdown risk and walk-away options, solved exactly (DEALSOLVE):",
         "   Rubinstein (1982) Econometrica 50(1), main theorem; breakdown risk: Binmore, Rubinstein & Wolinsky (1986) "
         "RAND J. Econ. 17(2) and Muthoo (1999) ch. 4;",
@@ -355,6 +380,7 @@ def supply(office, path):
     s.name("key_their_share", "B20")
     s.name("key_binding", "B22")
     s.name("in_days", "B15")
+    s.input_check(25, ["B7:B16", "A28:A%d" % (27 + len(DAYS))])
     s.name("in_our_inside", "B10")
     s.put("A26", "How the split moves as offers come from 1 to 90 days apart", style="CtoHeading")
     heads = ["Days between offers", "Our share, we open", "Our share, they open",
@@ -458,6 +484,16 @@ def licence(office, path):
     s.name("key_their_share", "B22")
     s.name("key_last_offer", "B23")
     s.name("in_rounds", "B11")
+    s.input_check(26, ["B7:B16"], ("AND(B11>=1;B11<=%d;INT(B11)=B11)" % MAX_ROUNDS,
+                                   "rounds must be a whole number from 1 to %d" % MAX_ROUNDS))
+    v = s.sh.getCellRangeByName("B11").Validation
+    v.Type = uno.Enum("com.sun.star.sheet.ValidationType", "WHOLE")
+    v.setOperator(uno.Enum("com.sun.star.sheet.ConditionOperator", "BETWEEN"))
+    v.setFormula1("1")
+    v.setFormula2(str(MAX_ROUNDS))
+    v.ShowErrorMessage = True
+    v.ErrorMessage = "Offers before the deadline: a whole number from 1 to %d." % MAX_ROUNDS
+    s.sh.getCellRangeByName("B11").Validation = v
     s.name("in_breakdown", "B12")
     s.put("A27", "Round by round: the split if agreement is reached in that round",
           style="CtoHeading")

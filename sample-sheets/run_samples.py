@@ -23,7 +23,8 @@ from office import Office, SERVICE, prop, url  # noqa: E402
 # Calc's CSV filter: comma, double quote, UTF-8 (76), from line 1, full precision
 # (not "as shown"), formulas as results (STYLE.md s.6).
 CSV_OPTIONS = "44,34,76,1,,0,false,true,false,false,false"
-ERROR_RESULT = 4  # com.sun.star.sheet.FormulaResult.ERROR
+ERROR_RESULT = 4
+OK_TEXT = "every input filled"  # the sheets' input check (build_samples.py)  # com.sun.star.sheet.FormulaResult.ERROR
 
 
 def used_range(sheet):
@@ -104,6 +105,13 @@ def process(office, path, out_dir):
         if naddin == 0:
             problems.append("%s: no cell calls the counteroffer add-in" % base)
         keys = key_results(doc)
+        if doc.NamedRanges.hasByName("check_inputs"):
+            check = doc.NamedRanges.getByName("check_inputs").ReferredCells \
+                .getCellByPosition(0, 0).getString()
+            if check != OK_TEXT:
+                problems.append("%s: input check says: %s" % (base, check))
+        else:
+            problems.append("%s: no input check (named cell check_inputs)" % base)
         nchart = charts(doc)
         doc.storeToURL(url(pdf), (prop("FilterName", "calc_pdf_Export"),))
         doc.storeToURL(url(csv), (prop("FilterName", "Text - txt - csv (StarCalc)"),

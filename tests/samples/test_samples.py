@@ -478,3 +478,38 @@ def test_error_cell_is_reported(office, tmp_path):
         problems
     # the dependent results are errors too, never numbers
     assert any("!C20 shows error" in p for p in problems)
+
+
+@pytest.mark.parametrize("name,cell", [("synergy_split.fods", "C16"),
+                                       ("supply_renegotiation.fods", "B12"),
+                                       ("licence_deadline.fods", "B13")])
+def test_empty_input_is_refused(office, tmp_path, name, cell):
+    """Calc 7.4 hands a single empty cell to an add-in as 0 (addin/README.md, 'Empty
+    cells'), so a cleared input would silently count as 0: the sheet's input check says
+    so and the main job refuses the sheet."""
+    from office import prop, url
+    broken = str(tmp_path / name)
+    doc = office.load(os.path.join(SAMPLES, name))
+    try:
+        c = Cells(doc)
+        assert c.s("B35" if name.startswith("synergy") else
+                   "B25" if name.startswith("supply") else "B26") == run_samples.OK_TEXT
+        c.cell(cell).setString("")
+        doc.calculateAll()
+        doc.storeToURL(url(broken), (prop("FilterName", "OpenDocument Spreadsheet Flat XML"),))
+    finally:
+        doc.close(True)
+    row, problems = run_samples.process(office, broken, str(tmp_path))
+    assert row["errors"] == 0  # no error cell: only the input check can catch this
+    assert any("input check says: an input cell is empty" in p for p in problems), problems
+
+
+def test_rounds_outside_the_table_are_refused(book):
+    """The round table has 12 rows: 13 rounds, or 2.5, fail the input check."""
+    c = Cells(book("licence_deadline.fods"))
+    for bad in (13, 2.5, 0):
+        c.set("B11", bad)
+        assert c.s("B26") == "rounds must be a whole number from 1 to 12", bad
+    c.set("B11", 12)
+    assert c.s("B26") == run_samples.OK_TEXT
+    licence_check(c)
