@@ -300,7 +300,7 @@ def synergy(office, path):
     s.put("B33", "=INDEX(B12:D12;MATCH(MAX(B20:D20);B20:D20;0))", style="CtoBest")
     s.put("A34", "Our share with the best candidate (EUR m)")
     s.put("B34", "=MAX(B20:D20)", MONEY)
-    s.input_check(35, ["B7:B10", "B12:D17"])
+    s.input_check(18, ["B7:B10", "B12:D17"])
     s.highlight("B19:D22", "B$20=MAX($B$20:$D$20)")
     s.name("key_best_candidate", "B33")
     s.name("key_best_share", "B34")
@@ -314,7 +314,7 @@ def synergy(office, path):
     s.chart("delay", ["A19:D19", "A23:D24"], "F26", (15.5, 8.0), "BarDiagram",
             "Expected loss if agreement slips one round", "Candidate", "EUR m",
             rows=True)
-    s.notes(37, [
+    s.notes(36, [
         "Shares: alternating offers with breakdown risk and walk-away options, solved exactly (DEALSOLVE):",
         "   Rubinstein (1982) Econometrica 50(1), main theorem; breakdown risk: Binmore, Rubinstein & Wolinsky (1986) "
         "RAND J. Econ. 17(2) and Muthoo (1999) ch. 4;",
@@ -380,7 +380,7 @@ def supply(office, path):
     s.name("key_their_share", "B20")
     s.name("key_binding", "B22")
     s.name("in_days", "B15")
-    s.input_check(25, ["B7:B16", "A28:A%d" % (27 + len(DAYS))])
+    s.input_check(17, ["B7:B16", "A28:A%d" % (27 + len(DAYS))])
     s.name("in_our_inside", "B10")
     s.put("A26", "How the split moves as offers come from 1 to 90 days apart", style="CtoHeading")
     heads = ["Days between offers", "Our share, we open", "Our share, they open",
@@ -484,7 +484,7 @@ def licence(office, path):
     s.name("key_their_share", "B22")
     s.name("key_last_offer", "B23")
     s.name("in_rounds", "B11")
-    s.input_check(26, ["B7:B16"], ("AND(B11>=1;B11<=%d;INT(B11)=B11)" % MAX_ROUNDS,
+    s.input_check(17, ["B7:B16"], ("AND(B11>=1;B11<=%d;INT(B11)=B11)" % MAX_ROUNDS,
                                    "rounds must be a whole number from 1 to %d" % MAX_ROUNDS))
     v = s.sh.getCellRangeByName("B11").Validation
     v.Type = uno.Enum("com.sun.star.sheet.ValidationType", "WHOLE")
