@@ -1326,11 +1326,14 @@ def gen_implied_factor():
             continue
         add(fn, [s, dT, opens], "ok", [v], src)
         n += 1
-    for a in ([1.0, 0.9, 1], [0.1, 0.9, 1], [0.0, 0.9, 0], [1.0, 0.9, 0], [0.5, 0.5, 1], [0.25, 0.5, 0]):
+    for a in ([1.0, 0.9, 1], [0.1, 0.9, 1], [0.0, 0.9, 0], [1.0, 0.9, 0], [0.5, 0.5, 1], [0.25, 0.5, 0],
+              [0.5, 0.0, 0], [0.3, 0.9999999999, 1], [0.7, 1e-9, 0]):
         v = implied_factor_root(*a)
         add(fn, a, "ok", [v], src + "; boundary and round cases")
     add(fn, [1.0, 0.0, 1], "indeterminate", [NAN], "other_factor 0, own opens: the share is 1 for every factor (header)")
     add(fn, [0.0, 1.0, 0], "indeterminate", [NAN], "other_factor 1, other opens: the share is 0 for every factor (header)")
+    add(fn, [0.0, 1.0, 1], "indeterminate", [NAN], "other_factor 1, own opens: the share is 0 for every factor below 1 (forward model)")
+    add(fn, [0.5, 1.0, 1], "invalid", [NAN], "other_factor 1, own opens: only the share 0 is reachable (forward model)")
     for a in ([1.2, 0.9, 1], [0.5, NAN, 1], [0.5, 0.9, 3], [0.5, 0.0, 1], [0.05, 0.9, 1]):
         add(fn, a, "invalid", [NAN], "not reachable or out of domain (header)")
 
@@ -1383,6 +1386,8 @@ def gen_implied_rate():
         add(fn, [s, rT, days, opens, basis, cont], "ok", [+v], src)
         n += 1
     add(fn, [0.5, 0.05, 0.0, 1, 365.0, 0], "indeterminate", [NAN], "days = 0 (header)")
+    for op in (0, 1):
+        add(fn, [1.0, 0.05, 30.0, op, 365.0, 0], "ok", [0.0], "forward model: the share 1 needs own rate 0; Rubinstein (1982)")
     for a in ([1.5, 0.05, 30.0, 1, 365.0, 0], [0.5, -0.05, 30.0, 1, 365.0, 0], [0.5, 0.05, 30.0, 1, 0.0, 0],
               [NAN, 0.05, 30.0, 1, 365.0, 0]):
         add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
