@@ -9,10 +9,9 @@ say "building the core and the example programs"
 build_core "$CTO_BUILD/main" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_EXAMPLES=ON
 say "deal comparison from the C interface (fictional scenario)"
 "$CTO_BUILD/main/deal_comparison" | tee "$OUT/deal_comparison.txt"
-# The sample deal sheets, recalculated headless in LibreOffice Calc, when that part of the
-# project is present (scripts/sheets-job.sh).
-if [ -x "$CTO_ROOT/scripts/sheets-job.sh" ]; then
-  ensure_venv
-  bash "$CTO_ROOT/scripts/sheets-job.sh" "$OUT"
-fi
+# The sample deal sheets: the add-in is built and installed into a private profile, every
+# sheet is recalculated headless and exported (PDF and CSV), with a summary table; any
+# error cell or missing output fails the job.
+ensure_venv
+bash "$CTO_ROOT/scripts/sheets-job.sh" "$OUT"
 say "done: results in $OUT"
