@@ -10,7 +10,7 @@
 //   deal_methods_decl.inc  C++ declarations of the interface methods
 //   deal_methods_def.inc   C++ definitions: each forwards to the generic evaluator
 //   deal_functions.txt   one line per Calc function: Calc name, method, category,
-//                        arguments (an optional one is marked with a trailing ?)
+//                        arguments as name=label (an optional name ends with ?)
 //                        (read by the sheet tests to check the metadata)
 //
 // The stored names (service org.counteroffer.DealFunctions, method get<CamelName>)
@@ -273,7 +273,7 @@ std::string make_list(const std::vector<Method> &ms) {
     for (const Method &m : ms) {
         s << m.calc << "\t" << m.method << "\t" << m.category;
         for (size_t j = 0; j < m.params.size(); ++j)
-            s << "\t" << m.params[j] << (m.optional[j] ? "?" : "");
+            s << "\t" << m.params[j] << (m.optional[j] ? "?" : "") << "=" << m.labels[j];
         s << "\n";
     }
     return s.str();

@@ -122,10 +122,12 @@ def check_metadata(office, functions_txt, fails):
         args = d["Arguments"]
         fails.check(len(args) == len(params),
                     "%s: %d arguments, expected %d" % (calc, len(args), len(params)))
-        for a, p in zip(args, params):
+        for a, param in zip(args, params):
             n_args += 1
+            p, label = param.split("=", 1)
             optional = p.endswith("?")
-            fails.check(bool(a.Name.strip()), "%s: argument %s has no display name" % (calc, p))
+            fails.check(a.Name == label, "%s: argument %s shows as %r, catalogue label %r" % (
+                calc, p, a.Name, label))
             fails.check(len(a.Description) > 10,
                         "%s: argument %s has no description" % (calc, p))
             fails.check(bool(a.IsOptional) == optional,
