@@ -206,6 +206,15 @@ VALUES = [
     ("screening, skim", "=DEALSCREEN(1;0.5;0.8;0.9;0.8)", 0.78, R11 % 72),
     ("screening, pool", "=DEALSCREEN(1;0.5;0.3;0.9;0.8)", 0.5, R11 % 73),
     ("call probe", "=DEALCALLPROBE(3;4)", 3.0, "the probe returns its first argument"),
+    ("inline arrays, one call", "=SUMPRODUCT(DEALSHARE({0.5;0.95};{0.5;0.9}))",
+     2 / 3.0 + 0.689655172413793, R11 % 9 + " + row 14"),
+    ("a single value applies to every element", "=SUMPRODUCT(DEALSHARE({0.5;0.5};0.5))",
+     4 / 3.0, R11 % 9 + " twice"),
+    ("outcome form, second case", "=INDEX(DEALSOLVEOUTCOME({0.5|0.95};{0.5|0.9});2;1)",
+     0.689655172413793, R11 % 14),
+    ("outcome form, second case, other share",
+     "=INDEX(DEALSOLVEOUTCOME({0.5|0.95};{0.5|0.9});2;2)", 1 - 0.689655172413793,
+     R11 % 14 + ": 1 - x*"),
 ]
 
 BAD = "CATALOGUE.md: bad input -> invalid argument"
@@ -265,6 +274,10 @@ ERRORS = [
     ("screening, low above high", "=DEALSCREEN(0.5;1;0.5;0.9;0.8)", "Err:502",
      "header: high_value >= low_value"),
     ("probe with text", "=DEALCALLPROBE(\"x\";1)", "Err:502", "the probe needs numbers"),
+    ("ranges of different shapes", "=SUMPRODUCT(DEALSHARE({0.5;0.5};{0.5;0.5;0.5}))",
+     "Err:502", "addin/README.md: every range argument must have the same shape"),
+    ("one bad element in an array", "=SUMPRODUCT(DEALSHARE({0.5;1.5};{0.5;0.5}))", "Err:502",
+     BAD + " (the element's Err:502 reaches the sum)"),
 ]
 
 # Whole columns: one matrix formula over ranges, each element with its own result.
