@@ -233,6 +233,8 @@ class DealFunctions
             static_cast<sal_Int16>(bad >= 0 ? bad : 0));
     }
 
+  public:
+    // The generic evaluator behind every generated method (public for the glue test).
     css::uno::Any evaluate(int id, const Arg *args, int n, bool outcome) {
         try {
             const cto_function_info &f = info(id);
@@ -256,6 +258,7 @@ class DealFunctions
         }
     }
 
+  private:
     css::uno::Any evaluate_scalar(const cto_function_info &f, const View *views) {
         double in[kMaxArgs];
         double out[kMaxArgs];
@@ -370,6 +373,7 @@ class DealFunctions
         return css::uno::Any(res);
     }
 
+  public:
     // DEALCALLPROBE: the same argument conversion as every function, no model.
     css::uno::Any probe(const Arg *args) {
         try {

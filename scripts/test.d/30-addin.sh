@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# The Calc add-in: build the .oxt (build/addin), install it into a private profile,
-# run every sheet test headless, check the Function Wizard metadata over UNO, and
+# The Calc add-in: build the .oxt (build/addin), test the UNO glue's status mapping,
+# install it into a private profile, run every sheet test headless, check the Function Wizard metadata over UNO, and
 # the round trip of a saved sheet through an office without the add-in.
 source "$(dirname "${BASH_SOURCE[0]}")/../lib.sh"
 ensure_apt libreoffice-calc-nogui libreoffice-dev libreoffice-dev-common python3-uno zip
@@ -12,6 +12,9 @@ GEN="$CTO_BUILD/addin/addin/generated"
 # Debian's Python carries python3-uno; the project venv is built on it.
 PY="$CTO_VENV/bin/python"
 [ -x "$PY" ] || PY=/usr/bin/python3
+
+say "UNO glue: status mapping and argument conversion"
+"$CTO_BUILD/addin/addin/addin_glue_test"
 
 work="$(mktemp -d "${TMPDIR:-/tmp}/cto_addin_test.XXXXXX")"
 trap 'rm -rf "$work"' EXIT
