@@ -3,8 +3,9 @@
 // Every method (generated from the catalogue table into deal_methods_*.inc) forwards
 // to evaluate(), which
 //   1. converts each UNO Any to a double (omitted -> the catalogue default; text of
-//      a choice -> its index; TRUE/FALSE -> 1/0; an empty or text cell where a
-//      number is needed -> NaN, which the library rejects as an invalid argument),
+//      a choice -> its index; TRUE/FALSE -> 1/0; text where a number is needed, or
+//      an empty cell inside a range -> NaN, which the library rejects as an invalid
+//      argument; Calc 7.4 itself passes a single empty cell reference as 0),
 //   2. calls cto_call (all scalars) or cto_call_strided (any argument a range),
 //   3. maps the status to the error value Calc shows (addin/README.md):
 //        invalid argument -> IllegalArgumentException       -> Err:502
@@ -19,7 +20,6 @@
 #include <com/sun/star/lang/IllegalArgumentException.hpp>
 #include <com/sun/star/lang/XServiceInfo.hpp>
 #include <com/sun/star/lang/XServiceName.hpp>
-#include <com/sun/star/registry/XRegistryKey.hpp>
 #include <com/sun/star/sheet/NoConvergenceException.hpp>
 #include <com/sun/star/uno/RuntimeException.hpp>
 #include <com/sun/star/uno/Sequence.hxx>
