@@ -171,14 +171,19 @@ std::vector<Method> collect() {
     Method probe;
     probe.method = "getCallProbe";
     probe.calc = "DEALCALLPROBE";
+    // The argument shape of DEALSHARE (two required, two optional), so that comparing
+    // the two measures the add-in's own work and not Calc's cost per parameter.
     probe.desc = "Diagnostic: returns its first argument after the same argument "
-                 "conversion as every DEAL function; measures the cost of an add-in call.";
+                 "conversion as every DEAL function, with the argument shape of DEALSHARE; "
+                 "measures the cost of an add-in call.";
     probe.category = "Add-In";
-    probe.params = {"value", "other"};
-    probe.optional = {false, false};
-    probe.labels = {"Value", "Other"};
-    probe.helps = {"any number; returned unchanged. Required.",
-                   "any number; converted and ignored. Required."};
+    probe.params = {"value", "other", "third", "fourth"};
+    probe.optional = {false, false, true, true};
+    probe.labels = {"Value", "Other", "Third", "Fourth"};
+    probe.helps = {"Any number; returned unchanged. Required.",
+                   "Any number; converted and ignored. Required.",
+                   "Any number; converted and ignored (default 1). Optional.",
+                   "Any number; converted and ignored (default 1). Optional."};
     probe.id = -1;
     probe.outcome = false;
     ms.push_back(probe);

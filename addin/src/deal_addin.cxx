@@ -379,17 +379,23 @@ class DealFunctions
         try {
             static const cto_arg_info kNumber = {"value", "Value", "", CTO_ARG_REAL, 0, 0.0, 0,
                                                  nullptr};
-            View v, w;
-            if (!make_view(args[0], v) || !make_view(args[1], w))
-                throw css::lang::IllegalArgumentException(
-                    "DEALCALLPROBE: bad range", css::uno::Reference<css::uno::XInterface>(), 0);
-            const double x = to_double(v.first(), kNumber);
-            const double y = to_double(w.first(), kNumber);
-            if (!std::isfinite(x) || !std::isfinite(y))
+            static const cto_arg_info kOptional = {"value", "Value", "", CTO_ARG_REAL, 1, 1.0, 0,
+                                                   nullptr};
+            View v[4];
+            double x[4];
+            for (int j = 0; j < 4; ++j) {
+                if (!make_view(args[j], v[j]))
+                    throw css::lang::IllegalArgumentException(
+                        "DEALCALLPROBE: bad range", css::uno::Reference<css::uno::XInterface>(),
+                        static_cast<sal_Int16>(j));
+                x[j] = to_double(v[j].first(), j < 2 ? kNumber : kOptional);
+            }
+            if (!std::isfinite(x[0]) || !std::isfinite(x[1]) || !std::isfinite(x[2]) ||
+                !std::isfinite(x[3]))
                 throw css::lang::IllegalArgumentException(
                     "DEALCALLPROBE: a number is required",
                     css::uno::Reference<css::uno::XInterface>(), 0);
-            return css::uno::Any(x);
+            return css::uno::Any(x[0]);
         } catch (const css::uno::Exception &) {
             throw;
         } catch (...) {

@@ -8,7 +8,8 @@ DIR is a LibreOffice profile with the add-in installed (scripts/install-addin.sh
 --repeat hard recalculations, taken in rounds over the four documents, (XCalculatable.calculateAll) of one document holding
 the inputs and one kind of formula, all measured in this one run:
   native   =(1-B2)/(1-A2*B2)          per row (the Rubinstein share, own opens)
-  probe    =DEALCALLPROBE(A2;B2)       per row: an add-in call that does nothing
+  probe    =DEALCALLPROBE(A2;B2)       per row: an add-in call that does nothing, with
+                                      the argument shape of DEALSHARE
   share    =DEALSHARE(A2;B2)           per row
   array    {=DEALSHARE(A2:An;B2:Bn)}   one matrix formula over the column
   arraysum =SUMPRODUCT(DEALSHARE(A2:An;B2:Bn))  the same call, its array summed in
