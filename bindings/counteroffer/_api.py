@@ -366,18 +366,29 @@ def _evaluate_dask(spec: FunctionSpec, fn: Callable[..., Any], vals: List[Any]) 
     positions = [j for j, v in enumerate(vals) if np.ndim(v) != 0]
     arrays = da.broadcast_arrays(*(da.asarray(vals[j]) for j in positions))
 
-    def block(*blocks: Any, _key: Optional[str] = None) -> Any:
+    names = [name for name, _h in spec.outputs]
+
+    def block(*blocks: Any) -> Any:
         full = list(vals)
         for j, b in zip(positions, blocks):
             full[j] = b
         with _errors.errstate(**policy):
             r = fn(*full)
-        return r if _key is None else np.asarray(r[_key])
+        if len(names) == 1:
+            return r
+        return np.stack([np.asarray(r[n]) for n in names], axis=-1)
 
-    if len(spec.outputs) == 1:
+    if len(names) == 1:
         return da.map_blocks(block, *arrays, dtype=np.float64)
-    return ArrayResult({name: da.map_blocks(block, *arrays, dtype=np.float64, _key=name)
-                        for name, _h in spec.outputs})
+    # one evaluation for all outputs: a stacked block with the outputs on a new last axis
+    pairs: List[Any] = []
+    for a in arrays:
+        pairs += [a, tuple(range(a.ndim))]
+    _chunks, arrays = da.core.unify_chunks(*pairs)
+    ndim = arrays[0].ndim
+    stacked = da.map_blocks(block, *arrays, dtype=np.float64, new_axis=ndim,
+                            chunks=arrays[0].chunks + ((len(names),),))
+    return ArrayResult({n: stacked[..., k] for k, n in enumerate(names)})
 
 
 def make_function(spec: FunctionSpec, doc: str) -> Callable[..., Any]:

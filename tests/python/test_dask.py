@@ -63,3 +63,14 @@ def test_raw_ufunc_works_with_dask_unchanged():
     assert isinstance(raw, da.Array)
     np.testing.assert_array_equal(raw.compute(scheduler="synchronous"),
                                   co.share(np.linspace(0.1, 0.9, 9), 0.5))
+
+
+def test_solve_over_2d_dask_with_broadcasting_evaluates_once_per_block():
+    d1 = np.linspace(0.1, 0.95, 24).reshape(6, 4)
+    w = np.array([0.0, 0.2, 0.4, 0.6])
+    res = co.solve(da.from_array(d1, chunks=(4, 3)), 0.9, other_outside=w)
+    want = co.solve(d1, 0.9, other_outside=w)
+    graph_outputs = dask.compute(*[res[k] for k in want], scheduler="synchronous")
+    for k, got in zip(want, graph_outputs):
+        assert got.shape == (6, 4)
+        np.testing.assert_array_equal(got, want[k])
