@@ -65,7 +65,7 @@ def test_raw_ufunc_works_with_dask_unchanged():
                                   co.share(np.linspace(0.1, 0.9, 9), 0.5))
 
 
-def test_solve_over_2d_dask_with_broadcasting_evaluates_once_per_block():
+def test_solve_over_2d_dask_with_broadcasting():
     d1 = np.linspace(0.1, 0.95, 24).reshape(6, 4)
     w = np.array([0.0, 0.2, 0.4, 0.6])
     res = co.solve(da.from_array(d1, chunks=(4, 3)), 0.9, other_outside=w)
