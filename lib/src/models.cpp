@@ -108,9 +108,6 @@ int solve_core(const SolveIn &in, SolveOut *o) {
     };
     const double d0A = wait_value(omA, omdA, bA, gA);
     const double d0B = wait_value(omB, omdB, bB, gB);
-    const double ndA = std::max(wA, d0A), ndB = std::max(wB, d0B);
-    o->own_no_deal = own_a ? ndA : ndB;
-    o->other_no_deal = own_a ? ndB : ndA;
     o->binding = CTO_BINDS_NONE;
     o->boundary = false;
     o->rational = false;
@@ -122,7 +119,17 @@ int solve_core(const SolveIn &in, SolveOut *o) {
         std::isnan(WA) || std::isnan(WB))
         return kOverflow;
     const bool hasA = WA > 0.0, hasB = WB > 0.0;  // only a positive W can bind
-    // Rational iff S > max(w_A, d0_A) + max(w_B, d0_B), decided exactly.
+    // No-deal payoffs.  A side whose walk-away value beats waiting walks away at its first
+    // answer, which ends the talks for both: each side with a walk-away option then gets
+    // it, even one whose option is worse than waiting; a side without one keeps its value
+    // of waiting (its status quo and breakdown prospects).  Otherwise nobody walks and
+    // each gets its value of waiting, d0.
+    const bool walks = hasA || hasB;
+    const double ndA = walks && std::isfinite(wA) ? wA : d0A;
+    const double ndB = walks && std::isfinite(wB) ? wB : d0B;
+    o->own_no_deal = own_a ? ndA : ndB;
+    o->other_no_deal = own_a ? ndB : ndA;
+    // Rational iff S exceeds the sum of the no-deal payoffs, decided exactly.
     if (!exceeds(S, ndA, ndB)) {
         o->own_share = o->own_no_deal;
         o->other_share = o->other_no_deal;
@@ -175,10 +182,24 @@ int solve_core(const SolveIn &in, SolveOut *o) {
             shareA = d0A + X;
             shareB = d0B + R;
             break;
-        case 3:  // A's option binds: x = (1 - a_B)(S - d0_B) + a_B w_A
-            shareA = omB * (S - d0B) + aB * wA;
-            shareB = S - shareA;
+        case 3: {  // A's option binds: x = (1 - a_B)(S - d0_B) + a_B w_A
+            // A can use its option only as a responder, one round on.  Agreeing now leaves
+            // it x; refusing its own offer and walking at the next answer is worth
+            // d0_A + a_A W_A.  The gain from agreeing now is (1-a_B) Y + (1-a_A) W_A with
+            // Y = Sp - W_A; it is negative only when W_A exceeds Sp (a deal made rational
+            // by the other side's poor walk-away value).  Then the equilibrium has one
+            // round of delay: B proposes next and gives A exactly w_A, and both shares are
+            // present values that add up to less than the surplus.
+            const double Y = Sp - WA;
+            if (omB * Y + omA * WA < 0.0) {
+                shareA = d0A + aA * WA;
+                shareB = d0B + aB * Y;
+            } else {
+                shareA = omB * (S - d0B) + aB * wA;
+                shareB = S - shareA;
+            }
             break;
+        }
         default:  // (ii), (iv): B as responder gets exactly its walk-away value
             shareB = wB;
             shareA = S - wB;

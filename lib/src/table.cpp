@@ -490,7 +490,8 @@ const Row kRows[] = {
     ROW(5, outside_option_share, "DEALOUTSIDE", "own share when either side may walk away",
         "S - x = max(w_resp, d_resp y), S - y = max(w_open, d_open x), four linear regimes",
         "Shaked & Sutton (1984); Binmore, Shaked & Sutton (1989); Muthoo (1999) ch.5",
-        "ok; no_deal (S <= max(w_own,0) + max(w_oth,0)): max(w_own, 0); indeterminate; invalid",
+        "ok; no_deal (S <= w_own + w_oth when an option is positive, else S <= 0): w_own or 0; "
+        "indeterminate; invalid",
         kOutsideArgs, kValueOut),
     ROW(6, inside_option_share, "DEALINSIDE", "own share with status-quo income during talks",
         "g_open + (S - g_own - g_oth)(1 - d_resp)/(1 - d_own d_oth)", "Muthoo (1999) ch.6",

@@ -163,9 +163,27 @@ void fuzz_solve(FuzzedDataProvider &p) {
         const long double sum = static_cast<long double>(out.own_share) + out.other_share;
         // Subnormal results carry an absolute error of a few DBL_TRUE_MIN.
         const long double tol = 1e-15L * scale + 8.0L * DBL_TRUE_MIN;
-        if (std::fabs(sum - S) > tol) finding("own + other != surplus", "solve");
-        if (out.own_share < out.own_no_deal - tol) finding("own below its no-deal payoff", "solve");
-        if (out.other_share < out.other_no_deal - tol)
+        // own + other = surplus, except with one round of delay when the opener's
+        // walk-away value exceeds what agreeing now leaves it (its option then binds, and
+        // the present values include a round of status-quo flows and breakdown risk).
+        const bool opener_binds = in.own_opens ? (out.binding == CTO_BINDS_OWN || out.binding == CTO_BINDS_BOTH)
+                                               : (out.binding == CTO_BINDS_OTHER || out.binding == CTO_BINDS_BOTH);
+        if (std::fabs(sum - S) > tol && !opener_binds) finding("own + other != surplus", "solve");
+        // The opener can walk away only after a rejected offer: it secures the one-round
+        // continuation value of its no-deal payoff, c(v) = p b + (1-p)((1-d) g + d v).
+        auto cont = [&](double d, double b, double g, double v) {
+            const long double p = in.breakdown_prob;
+            return static_cast<double>(p * b + (1 - p) * ((1 - static_cast<long double>(d)) * g + static_cast<long double>(d) * v));
+        };
+        const double own_secure =
+            in.own_opens ? std::min(out.own_no_deal, cont(in.own_factor, in.own_fallback, in.own_inside, out.own_no_deal))
+                         : out.own_no_deal;
+        const double oth_secure =
+            in.own_opens ? out.other_no_deal
+                         : std::min(out.other_no_deal,
+                                    cont(in.other_factor, in.other_fallback, in.other_inside, out.other_no_deal));
+        if (out.own_share < own_secure - tol) finding("own below what it secures without a deal", "solve");
+        if (out.other_share < oth_secure - tol)
             finding("other below its no-deal payoff", "solve");
         if (!out.deal_rational) finding("ok without a rational deal", "solve");
     }

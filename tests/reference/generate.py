@@ -201,6 +201,19 @@ def wait_value(P, p):
     return (p * P.b + (1 - p) * (1 - P.d) * P.g) / (1 - al)
 
 
+def no_deal_payoffs(P, Q, p):
+    """The header's no-deal payoffs of the combined model (cto_solve): when some side's
+    walk-away value beats its value of waiting, that side walks away at its first answer
+    and each side with a walk-away value gets it (a side with none keeps its value of
+    waiting); otherwise nobody walks and each gets its value of waiting.  Checked against backward
+    induction in alternating_reference (the BI round-1 agreement must match)."""
+    dP, dQ = wait_value(P, p), wait_value(Q, p)
+    walks = (P.w is not None and P.w > dP) or (Q.w is not None and Q.w > dQ)
+    if not walks:
+        return dP, dQ
+    return (P.w if P.w is not None else dP), (Q.w if Q.w is not None else dQ)
+
+
 def bi_alternating(A, B, p, pi, T):
     """Exact backward induction over T rounds, A proposing in odd rounds.  After round T
     the status quo continues forever (values g).  Each responder accepts an offer worth at
@@ -315,6 +328,9 @@ def alternating_reference(fn, A, B, p, pi, own_is_A, header_nd=None):
     if T is not None and T <= 6001:
         xA1, vB1, vA2, yB2, deal1 = bi_alternating(A, B, p, pi, T)
         method = "BI T=%d" % T
+        if bool(deal1) != bool(deal):
+            skip(fn, "BI round-1 agreement differs from the no-deal rule", (deal1, deal))
+            return None
         if deal:
             x_fp, y_fp = fixed_point_alternating(A, B, p, pi)
             scale = max(abs(pi), abs(ndA), abs(ndB), 1)
@@ -585,7 +601,7 @@ def gen_outside_option_share():
                 wA = u(-1.0, 0.0) * S
                 wB = u(1.0, 1.5) * S
         wO, wT = (wA, wB) if opens else (wB, wA)
-        nd = (max(M(wO), M(0)), max(M(wT), M(0)))
+        nd = no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0)
         res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), opens, nd)
         if res is None:
             continue
@@ -597,7 +613,8 @@ def gen_outside_option_share():
               [0.5, 0.5, 0.4, 0.4, 1.0, 1], [0.95, 0.9, 0.2, 0.45, 1.0, 1], [0.9, 0.95, 0.45, 0.2, 1.0, 0],
               [0.9, 0.9, 0.0, 0.9 / 1.9, 1.0, 1], [0.9, 0.9, 0.6, 0.5, 1.0, 1]):
         dO, dT, wO, wT, S, op = a
-        res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), op, (max(M(wO), 0), max(M(wT), 0)))
+        res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), op,
+                         no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0))
         add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.11 case")
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
@@ -657,11 +674,7 @@ def gen_solve():
         opens = RNG.randrange(2)
         PO = Party(dO, bO, gO, None if wO == -INF else wO)
         PT = Party(dT, bT, gT, None if wT == -INF else wT)
-        ndO, ndT = wait_value(PO, M(p)), wait_value(PT, M(p))
-        if PO.w is not None:
-            ndO = max(ndO, PO.w)
-        if PT.w is not None:
-            ndT = max(ndT, PT.w)
+        ndO, ndT = no_deal_payoffs(PO, PT, M(p))
         res = family_row(fn, PO, PT, M(p), M(S), opens, (ndO, ndT))
         if res is None:
             continue

@@ -192,8 +192,12 @@ CTO_API int cto_breakdown_share(double own_factor, double other_factor,
  *  solved exactly over the four linear regimes (REFERENCE s.5 table).
  *  The option is a constraint, not a threat point (outside option principle).
  *  own_outside, other_outside: money, finite (a negative option never binds).
- *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= max(w_own,0) + max(w_oth,0)) ->
- *          max(w_own, 0); CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
+ *  No deal: when either option is positive, that side would walk away at its first
+ *  answer and both would get their options, so a deal is rational when
+ *  surplus > w_own + w_oth (even with w_own < 0: own then pays to keep the other in);
+ *  when both are <= 0 nobody walks and a deal is rational when surplus > 0.
+ *  Status: CTO_OK; CTO_E_NO_DEAL -> w_own (some option positive) or 0;
+ *          CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
  *  Accuracy: relative error < 1e-15. */
 CTO_API int cto_outside_option_share(double own_factor, double other_factor,
                                      double own_outside, double other_outside,
@@ -240,7 +244,7 @@ typedef struct cto_solve_outcome {
     int binding;            /* CTO_BINDS_NONE / _OWN / _OTHER / _BOTH           */
     int boundary;           /* 1: an option is within 1e-12 x surplus of binding*/
     int deal_rational;      /* 1: the surplus exceeds the no-deal payoffs       */
-    double own_no_deal;     /* own's no-deal payoff max(w, d^0)                 */
+    double own_no_deal;     /* own's no-deal payoff (see cto_solve)             */
     double other_no_deal;   /* other's no-deal payoff                           */
 } cto_solve_outcome;
 
@@ -252,9 +256,20 @@ typedef struct cto_solve_outcome {
  *  of REFERENCE s.5 on the surplus above (d_A^0, d_B^0) with factors alpha_i and
  *  options w_i - d_i^0, solved exactly over its four linear regimes.
  *  Sources: Rubinstein (1982); BRW (1986); Muthoo (1999) chs.3-6.
+ *  No-deal payoffs: when some side's walk-away value exceeds its value of waiting
+ *  d_i^0, that side walks away at its first answer and each side with a walk-away
+ *  option gets it (a side without one keeps d_i^0); otherwise each gets d_i^0.  A deal is
+ *  rational when the surplus exceeds their sum (decided exactly, TwoSum).
+ *  One round of delay: the opener can walk away only when answering, one round on;
+ *  when its walk-away value exceeds what agreeing now would leave it (possible only
+ *  when the other side's poor walk-away value makes the deal rational), it refuses
+ *  for a round, and the shares are the present values d_A^0 + alpha_A W_A and
+ *  d_B^0 + alpha_B (S' - W_A), which then need not add up to the surplus.
  *  Status: CTO_OK -> both shares, the binding option, deal_rational = 1;
  *          CTO_E_NO_DEAL -> shares = no-deal payoffs, deal_rational = 0;
- *          CTO_E_INDETERMINATE (p = 0, both factors 1) -> NaN shares;
+ *          CTO_E_INDETERMINATE (p = 0, both factors 1) -> NaN shares, deal_rational
+ *          = 1 (a deal is rational, its split is not determined), binding NONE
+ *          (the table entry point reports binding as NaN);
  *          CTO_E_INVALID (bad field, NULL, size too small) -> NaN shares.
  *  The outcome is written whenever out != NULL and out->size is large enough. */
 CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out);
@@ -387,9 +402,10 @@ CTO_API int cto_majority_share(double factor, int64_t parties, int64_t votes_nee
  *  Other opens: 1 - d_own = (1 - s)(1 - d_oth)/(s + (1 - s)(1 - d_oth)).
  *  observed_share s: own's fraction of the surplus, [0, 1]; other_factor in [0,1].
  *  Status: CTO_OK -> factor in [0,1]; CTO_E_INDETERMINATE (the share does not
- *  depend on own's factor: other_factor 0 when own opens, 1 when other opens,
- *  with the only reachable share) -> NaN; CTO_E_INVALID (share not reachable
- *  by any factor in [0,1]) -> NaN.   Accuracy: relative error < 1e-15 in 1 - d. */
+ *  depend on own's factor: other_factor 0 with own opening (share 1), or
+ *  other_factor 1 (share 0), at the only reachable share) -> NaN;
+ *  CTO_E_INVALID (share not reachable by any factor in [0,1]) -> NaN.
+ *  Accuracy: relative error < 1e-15 in 1 - d. */
 CTO_API int cto_implied_factor(double observed_share, double other_factor,
                                int own_opens, double *out);
 
