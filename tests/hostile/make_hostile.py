@@ -149,7 +149,9 @@ F = [
     ("DEALSCREEN", [("high_value", POS, None), ("low_value", POS, None),
                     ("high_prob", UNIT, None), ("seller_factor", UNIT, None),
                     ("buyer_factor", UNIT, None)], [1.0, 0.5, 0.45, 0.9, 0.8]),
-    ("DEALCALLPROBE", [("value", REAL, None), ("other", REAL, None)], [3.0, 4.0]),
+    # the diagnostic probe (addin/README.md): DEALSHARE's argument shape, two optional
+    ("DEALCALLPROBE", [("value", REAL, None), ("other", REAL, None), ("third", REAL, 1.0),
+                       ("fourth", REAL, 1.0)], [3.0, 4.0, 1.0, 1.0]),
 ]
 F[8] = ("DEALSOLVEOUTCOME", F[7][1], F[7][2])
 FUN = {f[0]: f for f in F}
@@ -321,7 +323,7 @@ def o_screen(vh, vl, q, ds, db):
     return ("ok", best)
 
 
-def o_probe(x, y):
+def o_probe(x, y, z, w):
     """DEALCALLPROBE returns its first argument (addin/README.md)."""
     return ("ok", x)
 
