@@ -94,11 +94,13 @@ inline bool exceeds(double a, double x, double y) {
 inline double rub_den(double d_open, double om_open, double om_resp) {
     return om_open + d_open * om_resp;
 }
+// The fraction is formed first and then scaled by S, so that a tiny (even subnormal)
+// surplus keeps its precision: S (1 - d) could otherwise underflow before the division.
 // Opener's share of S: S (1 - d_resp) / (1 - d_open d_resp).
-inline double rub_opener(double S, double om_resp, double den) { return S * om_resp / den; }
+inline double rub_opener(double S, double om_resp, double den) { return S * (om_resp / den); }
 // Responder's share of S: S d_resp (1 - d_open) / (1 - d_open d_resp).
 inline double rub_responder(double S, double d_resp, double om_open, double den) {
-    return S * d_resp * om_open / den;
+    return S * (d_resp * om_open / den);
 }
 
 // The checks of the two-factor Rubinstein functions (share, first_mover_advantage):
@@ -132,12 +134,23 @@ inline int share(double own_factor, double other_factor, double surplus, bool ow
     return finish(v, out, bad, 2);  // S near DBL_MAX can round past it
 }
 
+// a b / c for positive finite a, b, c without overflow or underflow in the steps: the
+// mantissas are combined in [1/8, 2) and the exponents added, so only the final result
+// rounds (once, also into the subnormal range).  Used where ratios of extreme inputs meet.
+inline double mul_div(double a, double b, double c) {
+    int ea, eb, ec;
+    const double ma = std::frexp(a, &ea), mb = std::frexp(b, &eb), mc = std::frexp(c, &ec);
+    return std::ldexp(ma * mb / mc, ea + eb - ec);
+}
+
 // Per-round log discount rho = c(rate) days / basis, c = log1p (annual effective) or
 // identity (continuous).  Factor = exp(-rho); 1 - factor = -expm1(-rho).
 inline double log_discount(double rate, double days, double basis, bool continuous) {
     const double c = continuous ? rate : std::log1p(rate);
-    if (c == 0.0 || days == 0.0) return 0.0;  // no discounting (also when days/basis overflows)
-    return c * (days / basis);
+    if (c == 0.0 || days == 0.0) return 0.0;  // no discounting
+    const double r = days / basis, rho = c * r;
+    if (std::isfinite(rho) && r >= DBL_MIN && rho >= DBL_MIN) return rho;
+    return mul_div(c, days, basis);  // days/basis or the product left the normal range
 }
 
 inline int round_factor(double rate, double days, double basis, bool continuous,

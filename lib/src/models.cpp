@@ -47,12 +47,12 @@ int share_from_rates(double own_rate, double other_rate, double days, double sur
             return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
         const double k_own = continuous ? own_rate : std::log1p(own_rate);
         const double k_oth = continuous ? other_rate : std::log1p(other_rate);
-        return finish(surplus * (k_oth / (k_own + k_oth)), out, bad, 3);
+        return finish(k_oth == 0.0 ? 0.0 : mul_div(surplus, k_oth, k_own + k_oth), out, bad, 3);
     }
     const double om_oth = -std::expm1(-rho_oth);  // 1 - other's factor
     const double den = -std::expm1(-sum);         // 1 - product of the factors
-    const double v = own_opens ? surplus * om_oth / den
-                               : surplus * std::exp(-rho_own) * om_oth / den;
+    const double v = own_opens ? surplus * (om_oth / den)
+                               : surplus * (std::exp(-rho_own) * om_oth / den);
     return finish(v, out, bad, 3);
 }
 
@@ -70,7 +70,7 @@ int limit_share(double own_rate, double other_rate, double surplus, double *out,
         ro *= 0.25;
         rt *= 0.25;
     }
-    return finish(surplus * (rt / (ro + rt)), out, bad, 2);
+    return finish(rt == 0.0 ? 0.0 : mul_div(surplus, rt, ro + rt), out, bad, 2);
 }
 
 // ---------------------------------------------------------------------------
@@ -631,7 +631,7 @@ int first_mover_advantage(double own_factor, double other_factor, double surplus
     const int pre = rub_prologue(own_factor, other_factor, surplus, out, bad);
     if (pre >= 0) return pre;
     const double om_own = 1.0 - own_factor, om_oth = 1.0 - other_factor;
-    const double v = surplus * om_own * om_oth / rub_den(own_factor, om_own, om_oth);
+    const double v = surplus * (om_own * om_oth / rub_den(own_factor, om_own, om_oth));
     return finish(v, out, bad, 2);
 }
 
@@ -775,8 +775,8 @@ int risk_averse_share(double own_factor, double other_factor, double own_curvatu
         // Closed form (REFERENCE s.7): Rubinstein with factors d^(1/a), via expm1.
         const double lA = log_factor(A.alpha) / A.a, lB = log_factor(B.alpha) / B.a;
         const double den = -std::expm1(lA + lB);
-        const double v = own_opens ? S * -std::expm1(lB) / den
-                                   : S * std::exp(lB) * -std::expm1(lA) / den;
+        const double v = own_opens ? S * (-std::expm1(lB) / den)
+                                   : S * (std::exp(lB) * -std::expm1(lA) / den);
         return finish(v, out, bad, 8);
     }
 
@@ -853,8 +853,8 @@ int majority_share(double factor, int64_t parties, int64_t votes_needed, int rol
     const double nd = static_cast<double>(n);
     if (role == CTO_ROLE_PARTNER) return finish(S * (factor / nd), out, bad, 4);
     // S (1 - d (q-1)/n) = S ((n - q + 1) + (1 - d)(q - 1)) / n: no cancellation near d = 1.
-    const double v = S * (static_cast<double>(n - q + 1) +
-                          (1.0 - factor) * static_cast<double>(q - 1)) / nd;
+    const double v = S * ((static_cast<double>(n - q + 1) +
+                           (1.0 - factor) * static_cast<double>(q - 1)) / nd);
     return finish(v, out, bad, 4);
 }
 
@@ -983,7 +983,7 @@ int screening_profit(double high_value, double low_value, double high_prob,
     const double screen = q * ((1.0 - db) * vH + db * vL) + (1.0 - q) * ds * vL;
     double best = std::max(pool, screen);
     if (q * vH > vL) {  // skim: only when q exceeds v_L / v_H
-        const double skim = vH * ((q * vH - vL) + ds * (1.0 - q) * vL) / (vH - vL);
+        const double skim = ((q * vH - vL) + ds * (1.0 - q) * vL) * (vH / (vH - vL));
         best = std::max(best, skim);
     }
     return finish(best, out, bad, 0);

@@ -17,6 +17,8 @@
  *     and own's no-deal payoff on CTO_E_NO_DEAL.  A NULL output pointer gives
  *     CTO_E_INVALID (nothing can be written).
  *   - A value returned with CTO_OK is finite.
+ *   - When several statuses apply, the first of invalid, no deal, indeterminate wins
+ *     (e.g. both factors 1 with a surplus of 0 is no deal).
  *   - No function keeps state, allocates, or throws: all are thread-safe.
  *   - Booleans are int (0 = false, any other value = true).
  *   - Conventions: "own" is the party whose result is returned, "other" the
