@@ -460,7 +460,9 @@ CTO_API int cto_screening_profit(double high_value, double low_value,
  * and its outputs.  cto_call and cto_call_strided evaluate any function with
  * all arguments passed as doubles; they convert and validate the doubles
  * (booleans must be 0 or 1, counts and choices whole numbers) and report which
- * argument was invalid.  The Python package and the Calc add-in are built on
+ * argument was invalid.  A count travels as a double here, so only counts up to
+ * 2^53 are exact on this path (the wrappers reject larger integers); the named C
+ * functions take int64_t counts up to 2^63 - 1.  The Python package and the Calc add-in are built on
  * these, so a new catalogue row needs no new wrapper code. */
 
 /* Argument kinds. */
