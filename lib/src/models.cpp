@@ -116,7 +116,7 @@ int solve_core(const SolveIn &in, SolveOut *o) {
     const double Sp = S - d0A - d0B;
     const double WA = wA - d0A, WB = wB - d0B;  // -inf stays -inf (absent)
     if (!std::isfinite(Sp) || !std::isfinite(d0A) || !std::isfinite(d0B) ||
-        std::isnan(WA) || std::isnan(WB))
+        (std::isfinite(wA) && !std::isfinite(WA)) || (std::isfinite(wB) && !std::isfinite(WB)))
         return kOverflow;
     const bool hasA = WA > 0.0, hasB = WB > 0.0;  // only a positive W can bind
     // No-deal payoffs.  A side whose walk-away value beats waiting walks away at its first
