@@ -1,8 +1,10 @@
 """A headless LibreOffice on a private profile, driven over UNO (python3-uno).
 
-Used by build_samples.py (writes the templates), run_samples.py (the main job's
-recalculation and export) and tests/samples.  Run with Debian's /usr/bin/python3 or
-the project venv (created with --system-site-packages, so it sees python3-uno)."""
+The project's one way to start and reach an office: used by build_samples.py (writes
+the templates), run_samples.py (the main job's recalculation and export), tests/samples,
+the add-in's sheet tests (tests/sheets/lo.py) and the hostile sheet (tests/hostile).
+Run with Debian's /usr/bin/python3 or the project venv (created with
+--system-site-packages, so it sees python3-uno)."""
 import os
 import subprocess
 import tempfile
@@ -33,8 +35,10 @@ def url(path):
 class Office:
     """One soffice process on `profile`, reached over a private pipe."""
 
-    def __init__(self, profile, start_timeout=90.0):
-        self.pipe = "cto_samples_" + uuid.uuid4().hex
+    def __init__(self, profile, start_timeout=90.0, new_session=False):
+        """new_session: run soffice in a process group of its own (so that a watchdog
+        can kill it and everything it started)."""
+        self.pipe = "cto_office_" + uuid.uuid4().hex
         env = dict(os.environ, LC_ALL="C.UTF-8", SAL_USE_VCLPLUGIN="svp")
         self.log = tempfile.TemporaryFile()
         self.proc = subprocess.Popen(
@@ -42,7 +46,7 @@ class Office:
              "--nodefault", "--nolockcheck",
              "-env:UserInstallation=" + url(profile),
              "--accept=pipe,name=%s;urp;StarOffice.ComponentContext" % self.pipe],
-            env=env, stdout=self.log, stderr=self.log)
+            env=env, stdout=self.log, stderr=self.log, start_new_session=new_session)
         local = uno.getComponentContext()
         resolver = local.ServiceManager.createInstanceWithContext(
             "com.sun.star.bridge.UnoUrlResolver", local)

@@ -12,30 +12,23 @@ the log show a crash.
 import os
 import signal
 import subprocess
-import tempfile
 import threading
 import time
-import uuid
 
-import uno  # noqa: F401  (python3-uno)
-from com.sun.star.beans import PropertyValue
-from com.sun.star.connection import NoConnectException
+import importlib.util
 
-SOFFICE = "/usr/lib/libreoffice/program/soffice"
+# The project's one office module, sample-sheets/office.py, loaded under its own name
+# (this file is also called office.py).
+_spec = importlib.util.spec_from_file_location(
+    "cto_office", os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..",
+                               "sample-sheets", "office.py"))
+cto_office = importlib.util.module_from_spec(_spec)
+_spec.loader.exec_module(cto_office)
+SOFFICE, prop, url = cto_office.SOFFICE, cto_office.prop, cto_office.url
+
 # Words soffice prints on a fatal signal or an abort (its own crash handler).
 CRASH_WORDS = ("Fatal exception", "Unspecified Application Error", "signal 11",
                "Segmentation fault", "core dumped", "terminate called", "Aborted")
-
-
-def prop(name, value):
-    p = PropertyValue()
-    p.Name = name
-    p.Value = value
-    return p
-
-
-def url(path):
-    return uno.systemPathToFileUrl(os.path.abspath(path))
 
 
 def processes_with(marker):
@@ -63,42 +56,24 @@ def crash_files(profile):
     return out
 
 
-class Office:
+class Office(cto_office.Office):
     def __init__(self, profile, deadline, start_timeout=60.0):
         self.profile = os.path.abspath(profile)
-        self.pipe = "cto_hostile_" + uuid.uuid4().hex
         self.timed_out = False
-        self.log = tempfile.TemporaryFile()
-        env = dict(os.environ, LC_ALL="C.UTF-8", SAL_USE_VCLPLUGIN="svp")
+        self.proc = None
         self.before = set(crash_files(self.profile))
-        self.proc = subprocess.Popen(
-            [SOFFICE, "--headless", "--invisible", "--norestore", "--nologo",
-             "--nodefault", "--nolockcheck",
-             "-env:UserInstallation=" + url(self.profile),
-             "--accept=pipe,name=%s;urp;StarOffice.ComponentContext" % self.pipe],
-            env=env, stdout=self.log, stderr=self.log, start_new_session=True)
         self._done = threading.Event()
         self._watchdog = threading.Thread(target=self._watch, args=(deadline,), daemon=True)
         self._watchdog.start()
-        local = uno.getComponentContext()
-        resolver = local.ServiceManager.createInstanceWithContext(
-            "com.sun.star.bridge.UnoUrlResolver", local)
-        t0 = time.monotonic()
-        while True:
-            try:
-                self.ctx = resolver.resolve(
-                    "uno:pipe,name=%s;urp;StarOffice.ComponentContext" % self.pipe)
-                break
-            except NoConnectException:
-                if self.proc.poll() is not None or time.monotonic() - t0 > start_timeout:
-                    self._kill()
-                    raise RuntimeError("soffice did not start")
-                time.sleep(0.1)
-        self.start_seconds = time.monotonic() - t0
-        self.desktop = self.ctx.ServiceManager.createInstanceWithContext(
-            "com.sun.star.frame.Desktop", self.ctx)
+        try:
+            super().__init__(self.profile, start_timeout=start_timeout, new_session=True)
+        except Exception:
+            self._kill()
+            raise
 
     def _kill(self):
+        if self.proc is None:
+            return
         try:
             os.killpg(self.proc.pid, signal.SIGKILL)  # our own process group only
         except ProcessLookupError:
@@ -108,13 +83,6 @@ class Office:
         if not self._done.wait(deadline):
             self.timed_out = True
             self._kill()
-
-    def load(self, path):
-        doc = self.desktop.loadComponentFromURL(url(path), "_blank", 0,
-                                                (prop("Hidden", True),))
-        if doc is None:
-            raise RuntimeError("could not load " + path)
-        return doc
 
     def close(self):
         """End the office; returns a list of problems (empty: it exited cleanly)."""
