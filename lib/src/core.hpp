@@ -12,6 +12,7 @@
 #define CTO_CORE_HPP
 
 #include <cfloat>
+#include <cstddef>
 #include <cmath>
 #include <cstdint>
 #include <limits>
@@ -133,6 +134,13 @@ inline int share(double own_factor, double other_factor, double surplus, bool ow
     }
     return finish(v, out, bad, 2);  // S near DBL_MAX can round past it
 }
+
+// cto_share over a block of m elements (own_opens given as 0/1 doubles), branch-free so
+// that the compiler vectorises it (blocks.cpp).  Writes a value for every element and
+// returns true when every element is valid and has a deal; then out[i] is bit for bit
+// what share() writes.  When it returns false the caller redoes the block with share().
+bool share_block(size_t m, const double *own_factor, const double *other_factor,
+                 const double *surplus, const double *own_opens, double *out);
 
 // a b / c for positive finite a, b, c without overflow or underflow in the steps: the
 // mantissas are combined in [1/8, 2) and the exponents added, so only the final result

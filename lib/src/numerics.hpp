@@ -76,6 +76,51 @@ Root brent(F &&f, double a, double b, double fa, double fb, double xtol = 1e-300
     return {b, false};
 }
 
+// Newton's method safeguarded by bisection (Press, Teukolsky, Vetterling & Flannery
+// 2007, "Numerical Recipes", 3rd ed., s.9.4, rtsafe) for a strictly decreasing f whose
+// root lies in [lo, hi], started at x.  fd(x, d) returns f(x) and sets d = f'(x).  Every
+// value narrows the bracket by its sign; a step that leaves the bracket or does not
+// shrink fast enough is replaced by bisection.  Converged means a Newton step below
+// 2 eps |x| + xtol (quadratic convergence: the iterate it gives is accurate to the last
+// bits), or a bracket narrower than that with both ends moved.  Otherwise (the root
+// outside [lo, hi] after all, or out of iterations) it reports not converged, and the
+// caller can fall back to brent(), which checks the bracket.
+template <class FD>
+Root newton_decreasing(FD &&fd, double lo, double hi, double x, double xtol = 1e-300,
+                       int max_iter = 100) {
+    bool lo_moved = false, hi_moved = false;
+    double step_old = hi - lo, step = step_old;
+    for (int it = 0; it < max_iter; ++it) {
+        double d = 0.0;
+        const double fx = fd(x, d);
+        if (!std::isfinite(fx)) return {NAN, false};
+        if (fx == 0.0) return {x, true};
+        if (fx > 0.0) {
+            lo = x;
+            lo_moved = true;
+        } else {
+            hi = x;
+            hi_moved = true;
+        }
+        const double tol = 2.0 * DBL_EPSILON * std::fabs(x) + xtol;
+        const double dx = d < 0.0 ? fx / d : NAN;
+        if (std::fabs(dx) <= tol) return {x - dx, true};  // before the bracket test: the
+                                                          // step may round onto an end
+        if (hi - lo <= tol) return {0.5 * (lo + hi), lo_moved && hi_moved};
+        const double xn = x - dx;
+        const bool newton = xn > lo && xn < hi && std::fabs(2.0 * dx) <= std::fabs(step_old);
+        step_old = step;
+        if (newton) {
+            step = -dx;
+            x = xn;
+        } else {
+            step = 0.5 * (hi - lo);
+            x = lo + step;
+        }
+    }
+    return {x, false};
+}
+
 // log(exp(a) + exp(b) + exp(c)) without overflow; -inf terms are skipped.
 double log_sum_exp3(double a, double b, double c);
 

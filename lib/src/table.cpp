@@ -4,6 +4,7 @@
 // named C function in capi.cpp).
 #include <cmath>
 #include <cstring>
+#include <utility>
 
 #include "core.hpp"
 
@@ -399,6 +400,25 @@ using Thunk = int (*)(const double *, double *, int *);
 using Loop = void (*)(size_t, const char *const *, const ptrdiff_t *, char *const *,
                       const ptrdiff_t *, signed char *, ptrdiff_t, Tally &);
 
+// Functions whose core has a block kernel (core::share_block): it evaluates a block of
+// elements branch-free, in a form the compiler vectorises, and says whether every
+// element came out valid with status ok; otherwise the block is redone element by
+// element through the thunk.  The kernel's values equal the thunk's bit for bit.
+using BlockKernel = bool (*)(size_t, const double *const *, double *const *);
+inline bool b_share(size_t m, const double *const *a, double *const *o) {
+    return core::share_block(m, a[0], a[1], a[2], a[3], o[0]);
+}
+template <Thunk F>
+constexpr BlockKernel kBlockKernel = nullptr;
+template <>
+constexpr BlockKernel kBlockKernel<t_share> = b_share;
+constexpr size_t kBlock = 256;
+
+inline bool is_double_array(const char *p, ptrdiff_t step) {
+    return step == static_cast<ptrdiff_t>(sizeof(double)) &&
+           reinterpret_cast<uintptr_t>(p) % alignof(double) == 0;
+}
+
 template <Thunk F, int NIN, int NOUT>
 void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const *outs,
              const ptrdiff_t *os, signed char *st, ptrdiff_t ss, Tally &t) {
@@ -416,7 +436,8 @@ void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const
         ostep[k] = os[k];
     }
     size_t ok = 0, first_ok = 0;  // the common case is counted in registers
-    for (size_t i = 0; i < n; ++i) {
+    // Element i: its inputs at ap[], read and advanced; outputs, status and tally.
+    auto element = [&](size_t i) {
         for (int j = 0; j < NIN; ++j) {
             std::memcpy(&a[j], ap[j], sizeof(double));
             ap[j] += astep[j];
@@ -430,14 +451,74 @@ void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const
         if (st) st[static_cast<ptrdiff_t>(i) * ss] = static_cast<signed char>(s);
         if (s == CTO_OK) {
             if (ok++ == 0) first_ok = i;
-            continue;
+            return;
         }
         if (s < 0 || s >= CTO_REPORT_SLOTS) s = CTO_E_INTERNAL;
         if (t.count[s]++ == 0) {
             t.first[s] = i;
             if (s == CTO_E_INVALID) t.first_bad = bad;
         }
+    };
+    size_t i = 0;
+    if constexpr (kBlockKernel<F> != nullptr) {
+        constexpr ptrdiff_t kBytes = static_cast<ptrdiff_t>(kBlock * sizeof(double));
+        double in_buf[NIN][kBlock];
+        double out_buf[NOUT][kBlock];
+        const double *in[NIN];
+        double *out[NOUT];
+        bool filled[NIN] = {};  // a broadcast input's buffer holds its value already
+        for (; n - i >= kBlock; i += kBlock) {
+            for (int j = 0; j < NIN; ++j) {
+                if (is_double_array(ap[j], astep[j])) {  // read in place
+                    in[j] = reinterpret_cast<const double *>(ap[j]);
+                    continue;
+                }
+                in[j] = in_buf[j];
+                if (astep[j] == 0 && filled[j]) continue;
+                const char *p = ap[j];
+                for (size_t e = 0; e < kBlock; ++e, p += astep[j])
+                    std::memcpy(&in_buf[j][e], p, sizeof(double));
+                filled[j] = astep[j] == 0;
+            }
+            // An output is written in place when it is a double array apart from every
+            // input of the block (the fallback below must still read the inputs).
+            for (int k = 0; k < NOUT; ++k) {
+                out[k] = out_buf[k];
+                if (!is_double_array(op[k], ostep[k])) continue;
+                const uintptr_t o_lo = reinterpret_cast<uintptr_t>(op[k]);
+                bool apart = true;
+                for (int j = 0; j < NIN; ++j) {
+                    uintptr_t lo = reinterpret_cast<uintptr_t>(ap[j]);
+                    uintptr_t hi = reinterpret_cast<uintptr_t>(
+                        ap[j] + (static_cast<ptrdiff_t>(kBlock) - 1) * astep[j]);
+                    if (hi < lo) std::swap(lo, hi);
+                    apart = apart && (hi + sizeof(double) <= o_lo ||
+                                      o_lo + static_cast<uintptr_t>(kBytes) <= lo);
+                }
+                if (apart) out[k] = reinterpret_cast<double *>(op[k]);
+            }
+            if (!kBlockKernel<F>(kBlock, in, out)) {
+                for (size_t e = 0; e < kBlock; ++e) element(i + e);
+                continue;
+            }
+            for (int j = 0; j < NIN; ++j) ap[j] += static_cast<ptrdiff_t>(kBlock) * astep[j];
+            for (int k = 0; k < NOUT; ++k) {
+                if (out[k] != out_buf[k]) {
+                    op[k] += kBytes;
+                    continue;
+                }
+                for (size_t e = 0; e < kBlock; ++e, op[k] += ostep[k])
+                    std::memcpy(op[k], &out_buf[k][e], sizeof(double));
+            }
+            if (st) {
+                for (size_t e = 0; e < kBlock; ++e)
+                    st[static_cast<ptrdiff_t>(i + e) * ss] = static_cast<signed char>(CTO_OK);
+            }
+            if (ok == 0) first_ok = i;
+            ok += kBlock;
+        }
     }
+    for (; i < n; ++i) element(i);
     if (ok > 0 && t.count[CTO_OK] == 0) t.first[CTO_OK] = first_ok;
     t.count[CTO_OK] += ok;
 }

@@ -357,8 +357,11 @@ CTO_API int cto_nash_share(double own_fallback, double other_fallback,
  *  uses effective factors d^(1/a).  CTO_UTILITY_EXPONENTIAL: u = (1 - e^(-k x))/k,
  *  k > 0 (shares then depend on the scale of the surplus).  Otherwise the
  *  conditions are reduced to one equation in the first-mover gap x + y - S, which
- *  is well conditioned near d = 1, and solved by a bracketed root finder to full
- *  double precision; running out of iterations is CTO_E_NO_CONVERGENCE.
+ *  is well conditioned near d = 1, and solved to full double precision: for
+ *  exponential utility by Newton's method with the exact derivative, safeguarded by
+ *  bisection (Numerical Recipes 3rd ed. s.9.4), started at the Rubinstein share with
+ *  factors (1-p) d; otherwise, or if Newton does not settle, by Brent's method (Brent
+ *  1973); running out of iterations is CTO_E_NO_CONVERGENCE.
  *  Fallbacks must be >= 0 for power utility.
  *  Status: CTO_OK; CTO_E_NO_DEAL (S <= c_own + c_oth, c_i the certainty
  *  equivalent of waiting for breakdown, u_i^-1(p u_i(b_i)/(1 - alpha_i))) -> c_own;
@@ -535,7 +538,9 @@ typedef struct cto_batch_report {
  *  when not NULL, receives each element's status as a signed char with stride
  *  status_stride.  report (may be NULL) is filled in.  Every element's outputs
  *  are written.  Returns CTO_OK, or CTO_E_INVALID when id or a pointer is bad
- *  (then nothing is written).  The loop is specialised per function. */
+ *  (then nothing is written).  The loop is specialised per function; for share
+ *  it evaluates blocks of 256 valid elements with vector instructions (AVX2 where
+ *  the CPU has it), with results identical bit for bit to cto_call's. */
 CTO_API int cto_call_strided(int id, size_t n, const char *const *args,
                              const ptrdiff_t *arg_strides, char *const *outputs,
                              const ptrdiff_t *output_strides, signed char *statuses,
