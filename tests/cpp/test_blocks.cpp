@@ -80,6 +80,15 @@ Expected scalar_calls(const Columns &c) {
 
 bool same_bits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
 
+// One strided call of share over n elements; the call itself must be accepted.
+cto_batch_report run_share(const char *const *ap, const ptrdiff_t *as, char *const *op,
+                           const ptrdiff_t *os, signed char *st, ptrdiff_t ss, size_t n = kN) {
+    cto_batch_report rep;
+    rep.size = sizeof rep;
+    REQUIRE(cto_call_strided(kShare, n, ap, as, op, os, st, ss, &rep) == CTO_OK);
+    return rep;
+}
+
 void check_against(const Expected &x, const std::vector<double> &value,
                    const std::vector<signed char> &status, const cto_batch_report &rep) {
     for (size_t i = 0; i < kN; ++i) {
@@ -122,9 +131,7 @@ TEST_CASE("share: the block path equals the scalar call in every memory layout",
         }
         char *op[1] = {reinterpret_cast<char *>(out.data())};
         const ptrdiff_t os[1] = {sizeof(double)};
-        cto_batch_report rep;
-        rep.size = sizeof rep;
-        REQUIRE(cto_call_strided(kShare, kN, ap, as, op, os, st.data(), 1, &rep) == CTO_OK);
+        const cto_batch_report rep = run_share(ap, as, op, os, st.data(), 1);
         check_against(x, out, st, rep);
     }
 
@@ -144,10 +151,7 @@ TEST_CASE("share: the block path equals the scalar call in every memory layout",
         char *op[1] = {reinterpret_cast<char *>(oraw.data() + 3)};
         const ptrdiff_t os[1] = {2 * sizeof(double)};
         std::vector<signed char> st3(kN * 3, -1);
-        cto_batch_report rep;
-        rep.size = sizeof rep;
-        REQUIRE(cto_call_strided(kShare, kN, ap, as, op, os, st3.data(), 3, &rep) ==
-                CTO_OK);
+        const cto_batch_report rep = run_share(ap, as, op, os, st3.data(), 3);
         std::vector<double> out(kN);
         std::vector<signed char> st(kN);
         for (size_t i = 0; i < kN; ++i) {
@@ -167,9 +171,7 @@ TEST_CASE("share: the block path equals the scalar call in every memory layout",
         const ptrdiff_t as[4] = {sizeof(double), sizeof(double), sizeof(double), sizeof(double)};
         char *op[1] = {reinterpret_cast<char *>(buf.data())};
         const ptrdiff_t os[1] = {sizeof(double)};
-        cto_batch_report rep;
-        rep.size = sizeof rep;
-        REQUIRE(cto_call_strided(kShare, kN, ap, as, op, os, st.data(), 1, &rep) == CTO_OK);
+        const cto_batch_report rep = run_share(ap, as, op, os, st.data(), 1);
         check_against(x, buf, st, rep);
     }
 }
@@ -190,10 +192,7 @@ TEST_CASE("share: broadcast surplus and opener flag on the block path", "[stride
             const ptrdiff_t as[4] = {sizeof(double), sizeof(double), 0, 0};
             char *op[1] = {reinterpret_cast<char *>(out.data())};
             const ptrdiff_t os[1] = {sizeof(double)};
-            cto_batch_report rep;
-            rep.size = sizeof rep;
-            REQUIRE(cto_call_strided(kShare, kN, ap, as, op, os, st.data(), 1, &rep) ==
-                    CTO_OK);
+            const cto_batch_report rep = run_share(ap, as, op, os, st.data(), 1);
             size_t counted[CTO_REPORT_SLOTS] = {};
             for (size_t i = 0; i < kN; ++i) {
                 double v;
@@ -223,8 +222,7 @@ TEST_CASE("share: block values agree with the published formula", "[strided][blo
         const ptrdiff_t as[4] = {sizeof(double), sizeof(double), 0, 0};
         char *op[1] = {reinterpret_cast<char *>(out.data())};
         const ptrdiff_t os[1] = {sizeof(double)};
-        REQUIRE(cto_call_strided(kShare, kBlock * 2, ap, as, op, os, nullptr, 0, nullptr) ==
-                CTO_OK);
+        run_share(ap, as, op, os, nullptr, 0, kBlock * 2);
         for (size_t i = 0; i < kBlock * 2; ++i) {
             const long double d1 = c.own[i], d2 = c.other[i];
             const long double den = 1.0L - d1 * d2;
