@@ -1,5 +1,6 @@
 #!/usr/bin/env bash
-# Builds the libFuzzer harness with clang (ASan + UBSan) and runs it on the committed
+# Builds the libFuzzer harness with clang (ASan + UBSan; -ffp-contract=off as the library
+# build has) and runs it on the committed
 # corpus.  Usage: run-fuzz.sh [max_total_time_seconds] [extra libFuzzer flags...]
 # CI runs a short pass; a long pass (for example -runs=100000000 -jobs=2) is run by hand.
 set -euo pipefail
@@ -15,7 +16,7 @@ if [ "$#" -eq 0 ]; then set -- -seed=20261202 -runs=400000; fi
 # run may use undefined alone, or none (CTO_FUZZ_SANITIZE=): the library allocates nothing,
 # and the contract checks in the harness are what the run is for.
 san="${CTO_FUZZ_SANITIZE-address,undefined}"
-clang++ -std=c++17 -O2 -g -fno-omit-frame-pointer \
+clang++ -std=c++17 -O2 -g -fno-omit-frame-pointer -ffp-contract=off \
   -fsanitize=fuzzer${san:+,$san} -fno-sanitize-recover=all \
   -I"$root/lib/include" "$root"/lib/src/*.cpp "$root/tests/fuzz/fuzz_capi.cpp" \
   -o "$out/fuzz_capi"
