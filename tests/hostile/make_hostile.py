@@ -47,21 +47,6 @@ mp.mp.dps = 50
 OUT = os.path.join(os.environ.get("TMPDIR", "/tmp"), "cto_hostile.fods")
 DBL_MAX = 1.7976931348623157e308
 
-# Calc name -> stored method name (addin/README.md "Stable names").
-METHODS = {
-    "DEALFACTOR": "getRoundFactor", "DEALSHARE": "getShare",
-    "DEALSHARERATE": "getShareFromRates", "DEALSHARELIMIT": "getLimitShare",
-    "DEALBREAKDOWN": "getBreakdownShare", "DEALOUTSIDE": "getOutsideOptionShare",
-    "DEALINSIDE": "getInsideOptionShare", "DEALSOLVE": "getSolve",
-    "DEALSOLVEOUTCOME": "getSolveOutcome", "DEALDEADLINE": "getDeadlineShare",
-    "DEALFIXEDCOST": "getFixedCostShare", "DEALDELAYCOST": "getDelayCost",
-    "DEALFIRSTMOVER": "getFirstMoverAdvantage", "DEALNASH": "getNashShare",
-    "DEALRISKAVERSE": "getRiskAverseShare", "DEALGROUP": "getGroupShare",
-    "DEALMAJORITY": "getMajorityShare", "DEALIMPLIEDFACTOR": "getImpliedFactor",
-    "DEALIMPLIEDRATE": "getImpliedRate", "DEALSENSITIVITY": "getShareSensitivity",
-    "DEALSCREEN": "getScreeningProfit", "DEALCALLPROBE": "getCallProbe",
-}
-
 # Error values (addin/README.md "Error values"; Calc's error numbers).
 E_INVALID, E_NODEAL, E_INDET, E_PARAM = 502, 32767, 503, 504
 NAMES = {502: "Err:502", 32767: "#N/A", 503: "#NUM!", 523: "Err:523", 504: "Err:504",
@@ -777,7 +762,7 @@ def main():
     ap.add_argument("--out", default=OUT, help="where to write (default %(default)s)")
     args = ap.parse_args()
     sheet = build()
-    text = fods.document("hostile arguments", sheet.rows, METHODS, sheet.calls)
+    text = fods.document("hostile arguments", sheet.rows, sheet.calls)
     with open(args.out, "w", encoding="utf-8") as f:
         f.write(text)
     codes = {}

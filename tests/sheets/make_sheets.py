@@ -20,46 +20,16 @@ Run with the project venv's Python (it has mpmath).
 """
 import os
 import sys
-from xml.sax.saxutils import escape, quoteattr
 
 import mpmath as mp
 
+from flat_odf import document as odf_document, formula_cell, of_cell, row as odf_row
+from flat_odf import text_cell, value_cell as cell_value
+
 mp.mp.dps = 50
 HERE = os.path.dirname(os.path.abspath(__file__))
-NS = "ORG.COUNTEROFFER.DEALFUNCTIONS."
-
-# Calc name -> stored method name (addin/README.md: the stable names).
-METHOD = {
-    "DEALFACTOR": "GETROUNDFACTOR", "DEALSHARE": "GETSHARE",
-    "DEALSHARERATE": "GETSHAREFROMRATES", "DEALSHARELIMIT": "GETLIMITSHARE",
-    "DEALBREAKDOWN": "GETBREAKDOWNSHARE", "DEALOUTSIDE": "GETOUTSIDEOPTIONSHARE",
-    "DEALINSIDE": "GETINSIDEOPTIONSHARE", "DEALSOLVE": "GETSOLVE",
-    "DEALSOLVEOUTCOME": "GETSOLVEOUTCOME", "DEALDEADLINE": "GETDEADLINESHARE",
-    "DEALFIXEDCOST": "GETFIXEDCOSTSHARE", "DEALDELAYCOST": "GETDELAYCOST",
-    "DEALFIRSTMOVER": "GETFIRSTMOVERADVANTAGE", "DEALNASH": "GETNASHSHARE",
-    "DEALRISKAVERSE": "GETRISKAVERSESHARE", "DEALGROUP": "GETGROUPSHARE",
-    "DEALMAJORITY": "GETMAJORITYSHARE", "DEALIMPLIEDFACTOR": "GETIMPLIEDFACTOR",
-    "DEALIMPLIEDRATE": "GETIMPLIEDRATE", "DEALSENSITIVITY": "GETSHARESENSITIVITY",
-    "DEALSCREEN": "GETSCREENINGPROFIT", "DEALCALLPROBE": "GETCALLPROBE",
-}
 # Calc error values (addin/README.md).
 ERR = {"Err:502": 502, "#N/A": 32767, "#NUM!": 503, "Err:523": 523, "#VALUE!": 519}
-
-
-def stored(formula):
-    """A formula as typed (=DEALSHARE(A;B), refs like H2 or H2:H5) -> ODF of: syntax."""
-    import re
-    out = formula[1:]
-    for calc in sorted(METHOD, key=len, reverse=True):
-        out = re.sub(r"\b%s\(" % calc, NS + METHOD[calc] + "(", out)
-    out = re.sub(r"\bERRORTYPE\(", "ORG.OPENOFFICE.ERRORTYPE(", out)
-    out = re.sub(r"\b([A-Z]{1,2}[0-9]+):([A-Z]{1,2}[0-9]+)\b", r"[.\1:.\2]", out)
-    out = re.sub(r"(?<![.\w])([A-Z]{1,2}[0-9]+)\b(?![(:\]])", r"[.\1]", out)
-    return "of:=" + out
-
-
-def num(x):
-    return format(float(x), ".17g")
 
 
 # ---- mpmath references for functions without a row in REFERENCE.md s.11 --------------
@@ -294,23 +264,6 @@ ARRAY_ROWS = [
 ]
 
 
-def cell_value(v):
-    if v is None:
-        return '<table:table-cell/>'
-    if isinstance(v, str):
-        return ('<table:table-cell office:value-type="string"><text:p>%s</text:p>'
-                '</table:table-cell>' % escape(v))
-    return ('<table:table-cell office:value-type="float" office:value="%s"/>' % num(v))
-
-
-def text_cell(s):
-    return cell_value(str(s))
-
-
-def formula_cell(formula, extra=""):
-    return '<table:table-cell table:formula=%s%s/>' % (quoteattr(stored(formula)), extra)
-
-
 def check_formula(r, expected):
     if isinstance(expected, str):
         return "=IFERROR(ERRORTYPE(B%d)=G%d;FALSE())" % (r, r)
@@ -322,16 +275,13 @@ def document(title, rows):
     source, tol, inputs {col letter: value}, matrix_rows (for the anchor)."""
     out = []
     head = ["Case", "Result", "Expected", "Check", "Formula", "Source", "Tolerance / code"]
-    out.append("<table:table-row>%s</table:table-row>" % "".join(text_cell(h) for h in head))
+    out.append(odf_row(text_cell(h) for h in head))
     for i, row in enumerate(rows):
         r = i + 2
         cells = [text_cell(row["case"])]
         if row.get("formula"):
-            extra = ""
-            if row.get("matrix_rows"):
-                extra = (' table:number-matrix-columns-spanned="1"'
-                         ' table:number-matrix-rows-spanned="%d"' % row["matrix_rows"])
-            cells.append(formula_cell(row["formula"], extra))
+            matrix = (row["matrix_rows"], 1) if row.get("matrix_rows") else None
+            cells.append(formula_cell(row["formula"], matrix))
         else:
             cells.append("<table:table-cell/>")  # covered by the matrix formula above
         exp = row["expected"]
@@ -344,30 +294,12 @@ def document(title, rows):
         inputs = row.get("inputs", {})
         for col in "HIJ":
             cells.append(cell_value(inputs.get(col)))
-        out.append("<table:table-row>%s</table:table-row>" % "".join(cells))
+        out.append(odf_row(cells))
     n = len(rows) + 1
-    summary = ('<table:table table:name="Summary"><table:table-row>%s%s</table:table-row>'
-               '<table:table-row>%s%s</table:table-row></table:table>' % (
-                   text_cell("All checks"),
-                   '<table:table-cell table:formula=%s/>' % quoteattr(
-                       "of:=AND([$Cases.D2:.D%d])" % n),
-                   text_cell("Cases"), cell_value(len(rows))))
-    return """<?xml version="1.0" encoding="UTF-8"?>
-<office:document xmlns:office="urn:oasis:names:tc:opendocument:xmlns:office:1.0"
- xmlns:table="urn:oasis:names:tc:opendocument:xmlns:table:1.0"
- xmlns:text="urn:oasis:names:tc:opendocument:xmlns:text:1.0"
- xmlns:of="urn:oasis:names:tc:opendocument:xmlns:of:1.2"
- office:version="1.3" office:mimetype="application/vnd.oasis.opendocument.spreadsheet">
- <!-- %s: generated by tests/sheets/make_sheets.py. Test data only; results are model
-      estimates, not financial, legal or tax advice. -->
- <office:body><office:spreadsheet>
-  <table:table table:name="Cases">
-%s
-  </table:table>
-  %s
- </office:spreadsheet></office:body>
-</office:document>
-""" % (escape(title), "\n".join(out), summary)
+    summary = '<table:table table:name="Summary">%s%s</table:table>' % (
+        odf_row([text_cell("All checks"), of_cell("of:=AND([$Cases.D2:.D%d])" % n)]),
+        odf_row([text_cell("Cases"), cell_value(len(rows))]))
+    return odf_document(title, "tests/sheets/make_sheets.py", out, summary)
 
 
 def scalar_rows(cases):
