@@ -132,6 +132,14 @@ class Sheet:
         self.sh.getCellRangeByName("A3").CharWeight = 150.0
         self.put("A4", HOWTO)
 
+    def column_heads(self, row, heads, height):
+        """A table's header row from column A: wrapped headings; height in 1/100 mm."""
+        for i, h in enumerate(heads):
+            c = self.put("%s%d" % ("ABCDEFGHIJKLMNOPQRSTUVWXYZ"[i], row), h,
+                         style="CtoHeading")
+            c.IsTextWrapped = True
+        self.sh.Rows.getByIndex(row - 1).Height = height
+
     def notes(self, row, lines):
         self.put("A%d" % row, "Method and sources", style="CtoHeading")
         for i, text in enumerate(lines):
@@ -387,10 +395,7 @@ def supply(office, path):
              "Their share, we open", "Their share, they open", "First-mover advantage",
              "Walk-away that binds (we open)", "Our factor per round",
              "Their factor per round"]
-    for i, h in enumerate(heads):
-        c = s.put("%s27" % "ABCDEFGHI"[i], h, style="CtoHeading")
-        c.IsTextWrapped = True
-    s.sh.Rows.getByIndex(26).Height = 1000
+    s.column_heads(27, heads, 1000)
     for i, d in enumerate(DAYS):
         r = 28 + i
         s.inp("A%d" % r, d, WHOLE)
@@ -502,10 +507,7 @@ def licence(office, path):
              "Value they lose vs round 1", "Who proposes", "Offers left",
              "Chance talks are still open", "Our share, present value today",
              "Their share, present value today"]
-    for i, h in enumerate(heads):
-        c = s.put("%s28" % "ABCDEFGHIJ"[i], h, style="CtoHeading")
-        c.IsTextWrapped = True
-    s.sh.Rows.getByIndex(27).Height = 1400
+    s.column_heads(28, heads, 1400)
     for k in range(1, MAX_ROUNDS + 1):
         r = 28 + k
         g = "IF(A%d>$B$11;\"\";%%s)" % r
