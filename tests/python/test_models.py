@@ -15,6 +15,7 @@ import pytest
 from scipy import optimize
 
 import counteroffer as co
+from oracles import stationary_shares
 
 mpmath.mp.dps = 50
 FACTORS = [0.0, 0.3, 0.5, 0.9, 0.95, 0.999, 0.999999]
@@ -39,21 +40,6 @@ def bi_finite(dA, dB, S, T, bA=0.0, bB=0.0):
         v = S - d_resp * v
     assert proposer_is_A
     return v
-
-
-def bi_stationary(S, dA, dB, p=0.0, bA=0.0, bB=0.0, gA=0.0, gB=0.0, wA=-math.inf,
-                  wB=-math.inf, rounds=200_000):
-    """Backward induction of the combined model of CATALOGUE.md ('solve'), from far in
-    the future: a responder compares the offer with max(w, p b + (1-p)((1-d) g + d y)).
-    Returns (x, y): A's share when A proposes, B's share when B proposes."""
-    x = y = 0.0
-    for _ in range(rounds):
-        x_new = S - max(wB, p * bB + (1 - p) * ((1 - dB) * gB + dB * y))
-        y_new = S - max(wA, p * bA + (1 - p) * ((1 - dA) * gA + dA * x))
-        if x_new == x and y_new == y:
-            break
-        x, y = x_new, y_new
-    return x, y
 
 
 # ---- discounting -----------------------------------------------------------------
@@ -141,7 +127,7 @@ def test_limit_share_scipy_nash_product():
                                            (0.99, 0.97, 0.01, -0.1, 0.3)])
 def test_breakdown_share_backward_induction(dA, dB, p, bA, bB):
     # BRW (1986); Muthoo (1999) ch.4; REFERENCE s.4.2 timing; BI written here
-    x, y = bi_stationary(1.0, dA, dB, p=p, bA=bA, bB=bB)
+    x, y = stationary_shares(1.0, dA, dB, p=p, bA=bA, bB=bB)
     close(co.breakdown_share(dA, dB, p, bA, bB), x, rtol=1e-12, atol=1e-14)
     close(co.breakdown_share(dA, dB, p, bA, bB, own_opens=False), 1 - y, rtol=1e-12,
           atol=1e-14)
@@ -167,7 +153,7 @@ def test_outside_option_share_published_and_bi(dA, dB, wA, wB, a_prop, b_prop):
     # Shaked & Sutton (1984); Binmore, Shaked & Sutton (1989); Muthoo (1999) ch.5
     close(co.outside_option_share(dA, dB, wA, wB), a_prop, rtol=1e-14)
     close(co.outside_option_share(dA, dB, wA, wB, own_opens=False), 1 - b_prop, rtol=1e-14)
-    x, y = bi_stationary(1.0, dA, dB, wA=wA, wB=wB)  # backward induction written here
+    x, y = stationary_shares(1.0, dA, dB, wA=wA, wB=wB)  # backward induction written here
     close(co.outside_option_share(dA, dB, wA, wB), x, rtol=1e-12)
     close(co.outside_option_share(dA, dB, wA, wB, own_opens=False), 1 - y, rtol=1e-12)
 
@@ -182,7 +168,7 @@ def test_outside_option_no_deal():
                                          (0.5, 0.99, 0.3, 0.3)])
 def test_inside_option_share_bi(dA, dB, gA, gB):
     # Muthoo (1999) ch.6: status-quo flow (1-d) g per round while talks go on; BI here
-    x, y = bi_stationary(1.0, dA, dB, gA=gA, gB=gB)
+    x, y = stationary_shares(1.0, dA, dB, gA=gA, gB=gB)
     close(co.inside_option_share(dA, dB, gA, gB), x, rtol=1e-12)
     close(co.inside_option_share(dA, dB, gA, gB, own_opens=False), 1 - y, rtol=1e-12)
     if (dA, dB, gA, gB) == (0.9, 0.9, 0.1, 0.3):
@@ -199,9 +185,9 @@ def test_solve_backward_induction(case):
     # CATALOGUE.md 'solve': the combined stationary conditions; BI written here
     c = case
     inf = -math.inf
-    x, y = bi_stationary(1.0, c["dA"], c["dB"], c["p"], c["bA"], c["bB"], c["gA"], c["gB"],
-                         inf if c["wA"] is None else c["wA"],
-                         inf if c["wB"] is None else c["wB"])
+    x, y = stationary_shares(1.0, c["dA"], c["dB"], c["p"], c["bA"], c["bB"], c["gA"],
+                             c["gB"], inf if c["wA"] is None else c["wA"],
+                             inf if c["wB"] is None else c["wB"])
     r = co.solve(c["dA"], c["dB"], c["p"], c["bA"], c["bB"], c["gA"], c["gB"], c["wA"], c["wB"])
     close(r.own_share, x, rtol=1e-12)
     close(r.own_share + r.other_share, 1.0, rtol=1e-15)

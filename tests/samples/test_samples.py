@@ -29,6 +29,9 @@ from office import Office, SERVICE  # noqa: F401
 sys.path.insert(0, SAMPLES)
 import run_samples  # noqa: E402
 
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "python"))
+from oracles import stationary_shares  # noqa: E402
+
 REL = 1e-12
 BIND = {"none": "neither", "own": "ours", "other": "theirs", "both": "both"}
 
@@ -76,23 +79,6 @@ def rubinstein_rates(r_own, r_oth, days, surplus, opens, basis):
     d2 = mp.power(1 + mp.mpf(r_oth), -mp.mpf(days) / basis)
     x = surplus * (1 - d2) / (1 - d1 * d2)
     return x if opens else d1 * x
-
-
-def stationary(pi, d_a, d_b, p=0.0, b_a=0.0, b_b=0.0, g_a=0.0, g_b=0.0,
-               w_a=-float("inf"), w_b=-float("inf"), iters=200000):
-    """A's share as opener x and as responder pi - y, from the stationary conditions
-        pi - x = max(w_B, p b_B + (1-p)((1-d_B) g_B + d_B y))
-        pi - y = max(w_A, p b_A + (1-p)((1-d_A) g_A + d_A x))
-    (BRW 1986; Shaked & Sutton 1984; Muthoo 1999 chs. 4-6) by fixed-point iteration: the
-    map is a contraction with modulus (1-p)^2 d_A d_B, iterated to a fixed point."""
-    x = y = pi / 2
-    for _ in range(iters):
-        nx = pi - max(w_b, p * b_b + (1 - p) * ((1 - d_b) * g_b + d_b * y))
-        ny = pi - max(w_a, p * b_a + (1 - p) * ((1 - d_a) * g_a + d_a * x))
-        if nx == x and ny == y:
-            break
-        x, y = nx, ny
-    return x, pi - y
 
 
 def backward_induction(rounds, a_own, a_oth, b_own, b_oth, surplus, own_first):
@@ -215,7 +201,8 @@ def test_synergy_independent_references(book):
         r_t, days, p = c.v(col + "13"), c.v(col + "14"), c.v(col + "15")
         w_o, w_t = c.v(col + "16"), c.v(col + "17")
         fo, ft = c.v(col + "27"), c.v(col + "28")
-        x_open, x_resp = stationary(S, fo, ft, p, w_o, w_t, w_a=w_o, w_b=w_t)
+        x_open, y = stationary_shares(S, fo, ft, p, w_o, w_t, wA=w_o, wB=w_t)
+        x_resp = S - y
         assert close(c.v(col + "20"), x_open if opens else x_resp, rel=1e-11)
         assert close(c.v(col + "20") + c.v(col + "21"), S)
         assert close(c.v(col + "25"), x_open - x_resp, rel=1e-9, absolute=1e-10)
@@ -320,8 +307,9 @@ def test_supply_independent_references(book):
     i = supply_inputs(c)
     for r in (28, 34, 40):  # 1, 14 and 90 days
         fo, ft = c.v("H%d" % r), c.v("I%d" % r)
-        x_open, x_resp = stationary(i["S"], fo, ft, g_a=i["go"], g_b=i["gt"],
-                                    w_a=i["wo"], w_b=i["wt"], iters=2000000)
+        x_open, y = stationary_shares(i["S"], fo, ft, gA=i["go"], gB=i["gt"],
+                                      wA=i["wo"], wB=i["wt"], rounds=2000000)
+        x_resp = i["S"] - y
         assert close(c.v("B%d" % r), x_open, rel=1e-9), r
         assert close(c.v("C%d" % r), x_resp, rel=1e-9), r
         assert close(c.v("B%d" % r) + c.v("D%d" % r), i["S"])
