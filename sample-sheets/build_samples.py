@@ -132,6 +132,12 @@ class Sheet:
         self.sh.getCellRangeByName("A3").CharWeight = 150.0
         self.put("A4", HOWTO)
 
+    def input_rows(self, rows):
+        """(row, label, value, number format) -> the label in A, a yellow input in B."""
+        for r, label, v, f in rows:
+            self.put("A%d" % r, label)
+            self.inp("B%d" % r, v, f)
+
     def column_heads(self, row, heads, height):
         """A table's header row from column A: wrapped headings; height in 1/100 mm."""
         for i, h in enumerate(heads):
@@ -364,9 +370,7 @@ def supply(office, path):
         (15, "Days between offers (headline results)", 14, WHOLE),
         (16, "Days per year (day-count basis)", 365, WHOLE),
     ]
-    for r, label, v, f in rows:
-        s.put("A%d" % r, label)
-        s.inp("B%d" % r, v, f)
+    s.input_rows(rows)
     fo = "DEALFACTOR($B$8;$B$15;$B$16)"
     ft = "DEALFACTOR($B$9;$B$15;$B$16)"
     s.put("A18", "Headline results (EUR m unless stated)", style="CtoHeading")
@@ -464,9 +468,7 @@ def licence(office, path):
         (15, "We make the first offer (TRUE or FALSE)", True, None),
         (16, "Days per year (day-count basis)", 365, WHOLE),
     ]
-    for r, label, v, f in rows:
-        s.put("A%d" % r, label)
-        s.inp("B%d" % r, v, f)
+    s.input_rows(rows)
     s.put("A18", "Results (EUR m unless stated)", style="CtoHeading")
     s.put("A19", "Our per-round factor, times the chance talks survive a rejection")
     s.put("B19", "=(1-B12)*DEALFACTOR(B8;B10;B16)", FACTOR)
