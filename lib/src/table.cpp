@@ -419,6 +419,22 @@ inline bool is_double_array(const char *p, ptrdiff_t step) {
            reinterpret_cast<uintptr_t>(p) % alignof(double) == 0;
 }
 
+// Whether a block of doubles written at out misses every byte that the block's nin
+// inputs (at ap, with steps astep) are read from.
+inline bool apart_from_inputs(const char *out, const char *const *ap, const ptrdiff_t *astep,
+                              int nin) {
+    const uintptr_t o_lo = reinterpret_cast<uintptr_t>(out);
+    const uintptr_t o_hi = o_lo + kBlock * sizeof(double);
+    for (int j = 0; j < nin; ++j) {
+        uintptr_t lo = reinterpret_cast<uintptr_t>(ap[j]);
+        uintptr_t hi = reinterpret_cast<uintptr_t>(ap[j] + (static_cast<ptrdiff_t>(kBlock) - 1) *
+                                                               astep[j]);
+        if (hi < lo) std::swap(lo, hi);
+        if (!(hi + sizeof(double) <= o_lo || o_hi <= lo)) return false;
+    }
+    return true;
+}
+
 template <Thunk F, int NIN, int NOUT>
 void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const *outs,
              const ptrdiff_t *os, signed char *st, ptrdiff_t ss, Tally &t) {
@@ -483,19 +499,9 @@ void strided(size_t n, const char *const *args, const ptrdiff_t *as, char *const
             // An output is written in place when it is a double array apart from every
             // input of the block (the fallback below must still read the inputs).
             for (int k = 0; k < NOUT; ++k) {
-                out[k] = out_buf[k];
-                if (!is_double_array(op[k], ostep[k])) continue;
-                const uintptr_t o_lo = reinterpret_cast<uintptr_t>(op[k]);
-                bool apart = true;
-                for (int j = 0; j < NIN; ++j) {
-                    uintptr_t lo = reinterpret_cast<uintptr_t>(ap[j]);
-                    uintptr_t hi = reinterpret_cast<uintptr_t>(
-                        ap[j] + (static_cast<ptrdiff_t>(kBlock) - 1) * astep[j]);
-                    if (hi < lo) std::swap(lo, hi);
-                    apart = apart && (hi + sizeof(double) <= o_lo ||
-                                      o_lo + static_cast<uintptr_t>(kBytes) <= lo);
-                }
-                if (apart) out[k] = reinterpret_cast<double *>(op[k]);
+                const bool in_place = is_double_array(op[k], ostep[k]) &&
+                                      apart_from_inputs(op[k], ap, astep, NIN);
+                out[k] = in_place ? reinterpret_cast<double *>(op[k]) : out_buf[k];
             }
             if (!kBlockKernel<F>(kBlock, in, out)) {
                 for (size_t e = 0; e < kBlock; ++e) element(i + e);
