@@ -1,6 +1,6 @@
 // The catalogue as data: names, arguments, defaults and help for every function, and
 // the generic entry points cto_call / cto_call_strided that the wrappers are built on.
-// A new catalogue row is one entry in kRows below (plus its model in models.cpp and its
+// A new catalogue row is one entry in kRows below (plus its model in models/ and its
 // named C function in capi.cpp).
 #include <cmath>
 #include <cstring>
