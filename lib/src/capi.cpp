@@ -3,7 +3,7 @@
 // guard turns a defect into CTO_E_INTERNAL instead of undefined behaviour).
 #include <cstring>
 
-#include "core.hpp"
+#include "models.hpp"
 
 namespace core = cto::core;
 

@@ -172,61 +172,6 @@ inline int round_factor(double rate, double days, double basis, bool continuous,
                        bad);
 }
 
-int share_from_rates(double own_rate, double other_rate, double days, double surplus,
-                     bool own_opens, double basis, bool continuous, double *out, int *bad);
-int limit_share(double own_rate, double other_rate, double surplus, double *out, int *bad);
-int breakdown_share(double own_factor, double other_factor, double p, double own_fallback,
-                    double other_fallback, double surplus, bool own_opens, double *out,
-                    int *bad);
-int outside_option_share(double own_factor, double other_factor, double own_outside,
-                         double other_outside, double surplus, bool own_opens, double *out,
-                         int *bad);
-int inside_option_share(double own_factor, double other_factor, double own_inside,
-                        double other_inside, double surplus, bool own_opens, double *out,
-                        int *bad);
-
-// The combined model (cto_solve).  Outside options: -infinity means absent.
-struct SolveIn {
-    double own_factor, other_factor, p, own_fallback, other_fallback, own_inside,
-        other_inside, own_outside, other_outside, surplus;
-    bool own_opens;
-};
-struct SolveOut {
-    double own_share, other_share, own_no_deal, other_no_deal;
-    int binding;  // CTO_BINDS_*
-    bool boundary;
-    bool rational;
-};
-// Validates (argument indices in the catalogue order of `solve`), then solves.
-int solve(const SolveIn &in, SolveOut *out, int *bad);
-
-int deadline_share(double own_factor, double other_factor, int64_t rounds, double own_fallback,
-                   double other_fallback, double surplus, bool own_opens, double *out,
-                   int *bad);
-int fixed_cost_share(double own_cost, double other_cost, double surplus, bool own_opens,
-                     double *out, int *bad);
-int delay_cost(double factor, double stake, double p, double fallback, double *out, int *bad);
-int first_mover_advantage(double own_factor, double other_factor, double surplus, double *out,
-                          int *bad);
-int nash_share(double own_fallback, double other_fallback, double own_weight, double surplus,
-               double own_curvature, double other_curvature, double *out, int *bad);
-int risk_averse_share(double own_factor, double other_factor, double own_curvature,
-                      double other_curvature, int utility, double p, double own_fallback,
-                      double other_fallback, double surplus, bool own_opens, double *out,
-                      int *bad);
-int group_share(double factor, int64_t parties, int64_t position, double surplus, double *out,
-                int *bad);
-int majority_share(double factor, int64_t parties, int64_t votes_needed, int role,
-                   double surplus, double *out, int *bad);
-int implied_factor(double observed_share, double other_factor, bool own_opens, double *out,
-                   int *bad);
-int implied_rate(double observed_share, double other_rate, double days, bool own_opens,
-                 double basis, bool continuous, double *out, int *bad);
-int share_sensitivity(double own_rate, double other_rate, double days, int wrt, double surplus,
-                      bool own_opens, double basis, bool continuous, double *out, int *bad);
-int screening_profit(double high_value, double low_value, double high_prob,
-                     double seller_factor, double buyer_factor, double *out, int *bad);
-
 }  // namespace cto::core
 
 #endif  // CTO_CORE_HPP

@@ -6,7 +6,7 @@
 #include <cstring>
 #include <utility>
 
-#include "core.hpp"
+#include "models.hpp"
 
 namespace core = cto::core;
 

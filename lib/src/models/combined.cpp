@@ -5,7 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "../core.hpp"
+#include "combined.hpp"
 
 namespace cto::core {
 

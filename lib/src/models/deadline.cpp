@@ -4,7 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "../core.hpp"
+#include "deadline.hpp"
 #include "powers.hpp"
 
 namespace cto::core {

@@ -4,7 +4,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "../core.hpp"
+#include "incomplete.hpp"
 
 namespace cto::core {
 

@@ -5,7 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "../core.hpp"
+#include "rates.hpp"
 #include "powers.hpp"
 
 namespace cto::core {

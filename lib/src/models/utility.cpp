@@ -5,7 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "../core.hpp"
+#include "utility.hpp"
 #include "../numerics.hpp"
 #include "powers.hpp"
 
