@@ -17,14 +17,13 @@ import argparse
 import os
 import sys
 
-HERE = os.path.dirname(os.path.abspath(__file__))
-sys.path.insert(0, HERE)
-from office import Office, prop, url  # noqa: E402
+import uno
+from com.sun.star.awt import Rectangle
+from com.sun.star.lang import Locale
 
-import uno  # noqa: E402
-from com.sun.star.awt import Rectangle  # noqa: E402
-from com.sun.star.lang import Locale  # noqa: E402
-from com.sun.star.table import CellRangeAddress  # noqa: E402
+from officekit.office import FLAT_ODS, Office, prop, url
+
+HERE = os.path.dirname(os.path.abspath(__file__))
 
 CAUTION = ("Caution: every result on this sheet is a model estimate under the stated "
            "assumptions (complete information, stationary strategies, a responder who "
@@ -234,8 +233,7 @@ class Sheet:
 
     def save(self, path):
         self.doc.calculateAll()
-        self.doc.storeToURL(url(path), (prop("FilterName",
-                                             "OpenDocument Spreadsheet Flat XML"),))
+        self.doc.storeToURL(url(path), (prop("FilterName", FLAT_ODS),))
         self.doc.close(True)
 
 

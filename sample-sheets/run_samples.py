@@ -16,9 +16,7 @@ import os
 import sys
 import time
 
-HERE = os.path.dirname(os.path.abspath(__file__))
-sys.path.insert(0, HERE)
-from office import Office, SERVICE, prop, url  # noqa: E402
+from officekit.office import CSV, PDF, SERVICE, Office, prop, url
 
 # Calc's CSV filter: comma, double quote, UTF-8 (76), from line 1, full precision
 # (not "as shown"), formulas as results (STYLE.md s.6).
@@ -113,8 +111,8 @@ def process(office, path, out_dir):
         else:
             problems.append("%s: no input check (named cell check_inputs)" % base)
         nchart = charts(doc)
-        doc.storeToURL(url(pdf), (prop("FilterName", "calc_pdf_Export"),))
-        doc.storeToURL(url(csv), (prop("FilterName", "Text - txt - csv (StarCalc)"),
+        doc.storeToURL(url(pdf), (prop("FilterName", PDF),))
+        doc.storeToURL(url(csv), (prop("FilterName", CSV),
                                   prop("FilterOptions", CSV_OPTIONS)))
     finally:
         doc.close(True)

@@ -5,6 +5,9 @@ CTO_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 CTO_BUILD="${CTO_BUILD:-$CTO_ROOT/build}"
 CTO_VENV="${CTO_VENV:-$CTO_ROOT/.venv}"
 export LC_ALL=C.UTF-8
+# The repository root on PYTHONPATH, so that officekit/ (the office driver and flat-ODF
+# writer the sheet tools share) imports cleanly in every script and test part.
+export PYTHONPATH="$CTO_ROOT${PYTHONPATH:+:$PYTHONPATH}"
 
 say() { printf '\n== %s\n' "$*"; }
 die() { printf 'error: %s\n' "$*" >&2; exit 1; }
@@ -57,4 +60,38 @@ build_core() {
   local dir="$1"; shift
   cmake -S "$CTO_ROOT" -B "$dir" -DCMAKE_BUILD_TYPE=Release "$@" >/dev/null
   cmake --build "$dir" -j "$(nproc)"
+}
+
+# ensure_addin_profile: the Calc add-in built into $CTO_BUILD/addin (incremental) and
+# installed into one private LibreOffice profile, $CTO_BUILD/addin/profile, which every
+# sheet tool shares.  Sets CTO_ADDIN_BUILD, CTO_OXT and CTO_PROFILE.  Idempotent: the
+# profile is made afresh only when the .oxt differs from the one installed (a checksum
+# beside the profile), so the test parts and the main job install it once.  Two
+# offices must not use one profile at the same time: run the parts one after another.
+ensure_addin_profile() {
+  ensure_apt "${CTO_APT_PACKAGES[@]}"
+  CTO_ADDIN_BUILD="$CTO_BUILD/addin"
+  CTO_OXT="$CTO_ADDIN_BUILD/addin/counteroffer.oxt"
+  CTO_PROFILE="$CTO_ADDIN_BUILD/profile"
+  say "the Calc add-in ($CTO_ADDIN_BUILD)"
+  build_core "$CTO_ADDIN_BUILD" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_ADDIN=ON
+  [ -f "$CTO_OXT" ] || die "the add-in package was not built: $CTO_OXT"
+  local want stamp="$CTO_PROFILE.oxt.sha256"
+  want="$(sha256sum "$CTO_OXT" | cut -d' ' -f1)"
+  if [ ! -d "$CTO_PROFILE" ] || [ "$(cat "$stamp" 2>/dev/null)" != "$want" ]; then
+    say "installing the add-in into the private profile $CTO_PROFILE"
+    rm -rf "$CTO_PROFILE" "$stamp"
+    "$CTO_ROOT/scripts/install-addin.sh" --profile "$CTO_PROFILE" "$CTO_OXT"
+    echo "$want" > "$stamp"
+  fi
+}
+
+# ensure_package: the counteroffer Python package in the project venv (the sheet tools
+# read the library's table through it; scripts/test.d/20-python.sh installs it too).
+ensure_package() {
+  ensure_venv
+  if ! "$CTO_VENV/bin/python" -c "import counteroffer" 2>/dev/null; then
+    say "pip install . (counteroffer Python package)"
+    "$CTO_VENV/bin/python" -m pip install -q --no-build-isolation "$CTO_ROOT"
+  fi
 }

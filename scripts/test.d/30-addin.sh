@@ -1,33 +1,30 @@
 #!/usr/bin/env bash
-# The Calc add-in: build the .oxt (build/addin), test the UNO glue's status mapping,
-# install it into a private profile, run every sheet test headless, check the Function Wizard metadata over UNO, and
-# the round trip of a saved sheet through an office without the add-in.
+# The Calc add-in: build the .oxt and install it into the shared private profile
+# (ensure_addin_profile), test the UNO glue's status mapping, run every sheet test
+# headless, check the Function Wizard metadata over UNO, and the round trip of a saved
+# sheet through an office without the add-in (install and remove on that profile).
 source "$(dirname "${BASH_SOURCE[0]}")/../lib.sh"
-ensure_apt libreoffice-calc-nogui libreoffice-dev libreoffice-dev-common python3-uno zip
-build_core "$CTO_BUILD/addin" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_ADDIN=ON
-OXT="$CTO_BUILD/addin/addin/counteroffer.oxt"
-GEN="$CTO_BUILD/addin/addin/generated"
-[ -f "$OXT" ] || die "the add-in package was not built: $OXT"
-
-# Debian's Python carries python3-uno; the project venv is built on it.
+ensure_venv
+ensure_addin_profile
+GEN="$CTO_ADDIN_BUILD/addin/generated"
 PY="$CTO_VENV/bin/python"
-[ -x "$PY" ] || PY=/usr/bin/python3
 
 say "UNO glue: status mapping and argument conversion"
-"$CTO_BUILD/addin/addin/addin_glue_test"
+"$CTO_ADDIN_BUILD/addin/addin_glue_test"
 
 work="$(mktemp -d "${TMPDIR:-/tmp}/cto_addin_test.XXXXXX")"
 trap 'rm -rf "$work"' EXIT
-say "installing the add-in into a private profile"
-"$CTO_ROOT/scripts/install-addin.sh" --profile "$work/profile" "$OXT"
 
 say "sheet tests and Function Wizard metadata"
-timeout 600 "$PY" "$CTO_ROOT/tests/sheets/run_sheets.py" --profile "$work/profile" \
+timeout 600 "$PY" "$CTO_ROOT/tests/sheets/run_sheets.py" --profile "$CTO_PROFILE" \
   --functions "$GEN/deal_functions.txt" "$CTO_ROOT"/tests/sheets/*.fods
 
 say "saved with the add-in, reopened without it, computed after reinstalling"
-timeout 600 "$PY" "$CTO_ROOT/tests/sheets/run_sheets.py" --roundtrip --profile "$work/profile" \
-  --bare-profile "$work/bare" --oxt "$OXT" "$CTO_ROOT/tests/sheets/addin_values.fods"
+timeout 600 "$PY" "$CTO_ROOT/tests/sheets/run_sheets.py" --roundtrip --profile "$CTO_PROFILE" \
+  --bare-profile "$work/bare" --oxt "$CTO_OXT" "$CTO_ROOT/tests/sheets/addin_values.fods"
 
-say "removing the add-in again"
-"$CTO_ROOT/scripts/install-addin.sh" --remove --profile "$work/profile"
+say "removing the add-in again (from the round trip's profile)"
+"$CTO_ROOT/scripts/install-addin.sh" --remove --profile "$work/bare"
+"$CTO_ROOT/scripts/install-addin.sh" --list --profile "$work/bare" | grep -q org.counteroffer.calc \
+  && die "the add-in is still listed after --remove"
+true

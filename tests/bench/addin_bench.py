@@ -1,7 +1,7 @@
 #!/usr/bin/env python3
 """Benchmark of the Calc add-in (not part of the test run).
 
-  tests/bench/addin_bench.py --profile DIR [--rows 100000] [--repeat 3]
+  PYTHONPATH=. .venv/bin/python tests/bench/addin_bench.py --profile DIR [--rows 100000] [--repeat 3]
 
 DIR is a LibreOffice profile with the add-in installed (scripts/install-addin.sh
 --profile DIR).  Start-up is timed apart; every figure below is the best of
@@ -27,8 +27,7 @@ import sys
 import tempfile
 import time
 
-sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "sheets"))
-from lo import Office  # noqa: E402
+from officekit.office import Office
 
 
 KINDS = ("native", "probe", "share", "array", "arraysum", "natarray")

@@ -12,13 +12,9 @@ Layout of the sheet "Cases" (row 1 is the header):
 The sheet "Summary": B1 = AND of every check, B2 = the number of cases, B3 = the number
 of DEAL... calls (a matrix formula counts once per element it computes).
 """
-import os
-import sys
-
-sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "sheets"))
-from flat_odf import document as odf_document  # noqa: E402
-from flat_odf import formula_cell, of_cell, text_cell as text, value_cell  # noqa: E402
-from flat_odf import row as odf_row  # noqa: E402
+from officekit.flat_odf import document as odf_document
+from officekit.flat_odf import formula_cell, of_cell, text_cell as text, value_cell
+from officekit.flat_odf import row as odf_row
 
 INPUT_COLS = "IJKLMNOPQRSTUVWXYZ"
 

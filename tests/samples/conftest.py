@@ -11,8 +11,9 @@ import pytest
 
 ROOT = os.path.abspath(os.path.join(os.path.dirname(__file__), "..", ".."))
 SAMPLES = os.path.join(ROOT, "sample-sheets")
-sys.path.insert(0, SAMPLES)
-from office import Office  # noqa: E402
+sys.path.insert(0, SAMPLES)  # the folder under test: its runner, run_samples.py
+
+from officekit.office import Office  # noqa: E402
 
 SHEETS = sorted(f for f in os.listdir(SAMPLES) if f.endswith(".fods"))
 

@@ -24,7 +24,7 @@ import pytest
 import counteroffer as co
 
 from conftest import SAMPLES, SHEETS
-from office import Office, SERVICE  # noqa: F401
+from officekit.office import FLAT_ODS, Office, prop, url
 
 sys.path.insert(0, SAMPLES)
 import run_samples  # noqa: E402
@@ -455,12 +455,11 @@ def test_formulas_kept_without_addin(office):
 def test_error_cell_is_reported(office, tmp_path):
     """A sheet with an invalid input (negative days between offers: CATALOGUE.md, bad
     input -> Err:502 in Calc) is refused, naming the sheet, the cell and the code."""
-    from office import prop, url
     broken = str(tmp_path / "broken_synergy.fods")
     doc = office.load(os.path.join(SAMPLES, "synergy_split.fods"))
     try:
         doc.Sheets.getByIndex(0).getCellRangeByName("C14").setValue(-5)
-        doc.storeToURL(url(broken), (prop("FilterName", "OpenDocument Spreadsheet Flat XML"),))
+        doc.storeToURL(url(broken), (prop("FilterName", FLAT_ODS),))
     finally:
         doc.close(True)
     row, problems = run_samples.process(office, broken, str(tmp_path))
@@ -478,7 +477,6 @@ def test_empty_input_is_refused(office, tmp_path, name, cell):
     """Calc 7.4 hands a single empty cell to an add-in as 0 (addin/README.md, 'Empty
     cells'), so a cleared input would silently count as 0: the sheet's input check says
     so and the main job refuses the sheet."""
-    from office import prop, url
     broken = str(tmp_path / name)
     doc = office.load(os.path.join(SAMPLES, name))
     try:
@@ -486,7 +484,7 @@ def test_empty_input_is_refused(office, tmp_path, name, cell):
         assert c.s("B18" if name.startswith("synergy") else "B17") == run_samples.OK_TEXT
         c.cell(cell).setString("")
         doc.calculateAll()
-        doc.storeToURL(url(broken), (prop("FilterName", "OpenDocument Spreadsheet Flat XML"),))
+        doc.storeToURL(url(broken), (prop("FilterName", FLAT_ODS),))
     finally:
         doc.close(True)
     row, problems = run_samples.process(office, broken, str(tmp_path))

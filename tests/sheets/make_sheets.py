@@ -16,15 +16,17 @@ computed here with mpmath at 50 digits from the published formula named beside t
 case.  The error cases follow CATALOGUE.md "What every function must do with bad
 input" and the error mapping in addin/README.md.
 
-Run with the project venv's Python (it has mpmath).
+Run with the project venv's Python (it has mpmath and the counteroffer package, whose
+table gives the stored method names) and the repository root on PYTHONPATH:
+  PYTHONPATH=. .venv/bin/python tests/sheets/make_sheets.py
 """
 import os
 import sys
 
 import mpmath as mp
 
-from flat_odf import document as odf_document, formula_cell, of_cell, row as odf_row
-from flat_odf import text_cell, value_cell as cell_value
+from officekit.flat_odf import document as odf_document, formula_cell, of_cell
+from officekit.flat_odf import row as odf_row, text_cell, value_cell as cell_value
 
 mp.mp.dps = 50
 HERE = os.path.dirname(os.path.abspath(__file__))

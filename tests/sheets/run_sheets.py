@@ -20,11 +20,9 @@ import subprocess
 import sys
 import tempfile
 
-sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-from lo import Office, prop, url  # noqa: E402
+from officekit.office import ODS, SERVICE, Office, prop, url
 
 ROOT = os.path.abspath(os.path.join(os.path.dirname(__file__), "..", ".."))
-SERVICE = "ORG.COUNTEROFFER.DEALFUNCTIONS."
 # Calc's function category ids (com.sun.star.sheet.FunctionCategory).
 CATEGORY = {"Financial": 3, "Add-In": 11}
 NAME_ERROR = 525  # #NAME?: the function is unknown (add-in absent)
@@ -148,7 +146,7 @@ def roundtrip(args, fails):
     with Office(args.profile) as office:
         doc = office.load(sheet)
         doc.calculateAll()
-        doc.storeToURL(url(saved), (prop("FilterName", "calc8"),))
+        doc.storeToURL(url(saved), (prop("FilterName", ODS),))
         doc.close(True)
     # 2. reopened and saved again in an office without the add-in
     if os.path.exists(args.bare_profile):
@@ -161,7 +159,7 @@ def roundtrip(args, fails):
         fails.check(res.getError() == NAME_ERROR,
                     "without the add-in B2 should be #NAME?, got error %d value %r" % (
                         res.getError(), res.getValue()))
-        doc.storeToURL(url(resaved), (prop("FilterName", "calc8"),))
+        doc.storeToURL(url(resaved), (prop("FilterName", ODS),))
         doc.close(True)
     with Office(args.bare_profile) as office:
         check_sheet(office, resaved, fails, expect_name_errors=True)

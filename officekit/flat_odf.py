@@ -1,27 +1,16 @@
-"""Flat ODF (.fods) pieces shared by the writers of the add-in's test sheets
-(tests/sheets/make_sheets.py) and of the hostile sheet (tests/hostile/fods.py): the
-stored method names, formulas in ODF's of: syntax, cells, and the document around the
-sheets.  Each writer keeps only its own column layout.  ODF 1.3 (OASIS OpenDocument),
-part 3 (schema) for the elements, part 4 (OpenFormula) for the formula syntax."""
+"""Flat ODF (.fods) pieces for the project's generated test sheets (the add-in's sheet
+tests, tests/sheets/make_sheets.py; the hostile sheet, tests/hostile/): formulas in
+ODF's of: syntax with the add-in's stored method names (read from the library's table,
+officekit.catalogue), cells, and the document around the sheets.  Each writer keeps
+only its own column layout.  ODF 1.3 (OASIS OpenDocument), part 3 (schema) for the
+elements, part 4 (OpenFormula) for the formula syntax."""
 import re
 from xml.sax.saxutils import escape, quoteattr
 
-NS = "ORG.COUNTEROFFER.DEALFUNCTIONS."
+from officekit.catalogue import methods
+from officekit.office import SERVICE as NS
 
-# Calc name -> stored method name (addin/README.md "Stable names").
-METHODS = {
-    "DEALFACTOR": "getRoundFactor", "DEALSHARE": "getShare",
-    "DEALSHARERATE": "getShareFromRates", "DEALSHARELIMIT": "getLimitShare",
-    "DEALBREAKDOWN": "getBreakdownShare", "DEALOUTSIDE": "getOutsideOptionShare",
-    "DEALINSIDE": "getInsideOptionShare", "DEALSOLVE": "getSolve",
-    "DEALSOLVEOUTCOME": "getSolveOutcome", "DEALDEADLINE": "getDeadlineShare",
-    "DEALFIXEDCOST": "getFixedCostShare", "DEALDELAYCOST": "getDelayCost",
-    "DEALFIRSTMOVER": "getFirstMoverAdvantage", "DEALNASH": "getNashShare",
-    "DEALRISKAVERSE": "getRiskAverseShare", "DEALGROUP": "getGroupShare",
-    "DEALMAJORITY": "getMajorityShare", "DEALIMPLIEDFACTOR": "getImpliedFactor",
-    "DEALIMPLIEDRATE": "getImpliedRate", "DEALSENSITIVITY": "getShareSensitivity",
-    "DEALSCREEN": "getScreeningProfit", "DEALCALLPROBE": "getCallProbe",
-}
+METHODS = methods()  # Calc name -> stored method name
 
 
 def stored(formula):
