@@ -1,5 +1,5 @@
 // Block kernels: functions of core.hpp evaluated over a block of elements at once, in a
-// form the compiler vectorises.  The strided loops of table.cpp use them for blocks
+// form the compiler vectorises.  The strided loops of table/strided.hpp use them for blocks
 // whose elements all come out valid with status ok, and fall back to the scalar
 // function for any other block, so a kernel only has to be right on that common path.
 //

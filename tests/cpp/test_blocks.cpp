@@ -17,7 +17,7 @@
 
 namespace {
 
-constexpr size_t kBlock = 256;  // lib/src/table.cpp
+constexpr size_t kBlock = 256;  // lib/src/table/strided.hpp
 constexpr size_t kN = 7 * kBlock + 77;
 const int kShare = cto_function_find("share")->id;
 

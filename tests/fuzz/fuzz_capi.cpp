@@ -79,44 +79,24 @@ void check_out(int st, double v, const char *fn) {
     if (st == CTO_E_NO_DEAL && !std::isfinite(v)) finding("non-finite no-deal payoff", fn);
 }
 
-// Calls the named C function for catalogue row `id` with the drawn arguments.
-int call_named(int id, const double *a, const int64_t *n, double *out) {
-    const int b = static_cast<int>(n[0] & 1), c = static_cast<int>(n[1] & 1);
-    const int ch = static_cast<int>(n[2]);
-    switch (id) {
-        case 0: return cto_round_factor(a[0], a[1], a[2], b, out);
-        case 1: return cto_share(a[0], a[1], a[2], b, out);
-        case 2: return cto_share_from_rates(a[0], a[1], a[2], a[3], b, a[5], c, out);
-        case 3: return cto_limit_share(a[0], a[1], a[2], out);
-        case 4: return cto_breakdown_share(a[0], a[1], a[2], a[3], a[4], a[5], b, out);
-        case 5: return cto_outside_option_share(a[0], a[1], a[2], a[3], a[4], b, out);
-        case 6: return cto_inside_option_share(a[0], a[1], a[2], a[3], a[4], b, out);
-        case 8: return cto_deadline_share(a[0], a[1], n[3], a[3], a[4], a[5], b, out);
-        case 9: return cto_fixed_cost_share(a[0], a[1], a[2], b, out);
-        case 10: return cto_delay_cost(a[0], a[1], a[2], a[3], out);
-        case 11: return cto_first_mover_advantage(a[0], a[1], a[2], out);
-        case 12: return cto_nash_share(a[0], a[1], a[2], a[3], a[4], a[5], out);
-        case 13: return cto_risk_averse_share(a[0], a[1], a[2], a[3], ch, a[5], a[6], a[7], a[8], b, out);
-        case 14: return cto_group_share(a[0], n[3], n[4], a[3], out);
-        case 15: return cto_majority_share(a[0], n[3], n[4], ch, a[4], out);
-        case 16: return cto_implied_factor(a[0], a[1], b, out);
-        case 17: return cto_implied_rate(a[0], a[1], a[2], b, a[4], c, out);
-        case 18: return cto_share_sensitivity(a[0], a[1], a[2], ch, a[4], b, a[6], c, out);
-        case 19: return cto_screening_profit(a[0], a[1], a[2], a[3], a[4], out);
-        default: return -1;
-    }
-}
+// The named C function of every catalogue row, generated from the definitions
+// (lib/gen/gen_core.py): call_named(id, d, n, out, &found), is_adapter(id).
+#include "named_dispatch.inc"
 
-// The doubles cto_call sees for the same call (bools, counts, choices from n[]).
-void generic_args(const cto_function_info *f, const double *a, const int64_t *n, double *g) {
+// The typed value of each argument (n[j] for bools, counts and choices, drawn from the
+// fuzzer's integers) and the doubles cto_call sees for the same call.
+void typed_args(const cto_function_info *f, const double *a, const int64_t *drawn, int64_t *n,
+                double *g) {
     int bool_seen = 0, count_seen = 0;
     for (int j = 0; j < f->n_args; ++j) {
+        n[j] = 0;
         switch (f->args[j].kind) {
-            case CTO_ARG_BOOL: g[j] = static_cast<double>(n[bool_seen++] & 1); break;
-            case CTO_ARG_COUNT: g[j] = static_cast<double>(n[3 + count_seen++]); break;
-            case CTO_ARG_CHOICE: g[j] = static_cast<double>(n[2]); break;
-            default: g[j] = a[j];
+            case CTO_ARG_BOOL: n[j] = drawn[bool_seen++ % 2] & 1; break;
+            case CTO_ARG_COUNT: n[j] = drawn[3 + count_seen++ % 5]; break;
+            case CTO_ARG_CHOICE: n[j] = drawn[2]; break;
+            default: g[j] = a[j]; continue;
         }
+        g[j] = static_cast<double>(n[j]);
     }
 }
 
@@ -209,9 +189,12 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
     for (int64_t &x : n) x = pick_int(p);
     n[2] = p.ConsumeIntegralInRange<int>(-1, 2);  // a choice, sometimes out of range
     double named_out = sentinel();
-    const int named = call_named(f->id, a, n, &named_out);
+    int64_t nt[16];
     double g[16];
-    generic_args(f, a, n, g);
+    typed_args(f, a, n, nt, g);
+    bool found = false;
+    const int named = call_named(f->id, a, nt, &named_out, &found);
+    if (!found && !is_adapter(f->id)) finding("no named function in the dispatch", f->name);
     double outs[8];
     for (double &o : outs) o = sentinel();
     int bad = -2;
@@ -223,8 +206,11 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
     if (generic == CTO_E_INVALID && (bad < 0 || bad >= f->n_args)) finding("no bad argument named", f->name);
     if (generic != CTO_E_INVALID && bad != -1) finding("bad argument named without invalid", f->name);
     // Counts beyond 2^53 have no exact double: the two paths then see different numbers.
-    const bool exact_counts = std::llabs(n[3] == INT64_MIN ? INT64_MAX : n[3]) <= (int64_t(1) << 53) &&
-                              std::llabs(n[4] == INT64_MIN ? INT64_MAX : n[4]) <= (int64_t(1) << 53);
+    bool exact_counts = true;
+    for (int j = 0; j < f->n_args; ++j)
+        if (f->args[j].kind == CTO_ARG_COUNT &&
+            std::llabs(nt[j] == INT64_MIN ? INT64_MAX : nt[j]) > (int64_t(1) << 53))
+            exact_counts = false;
     if (named >= 0) check_out(named, named_out, f->name);
     if (named >= 0 && exact_counts) {
         if (named != generic) finding("named and generic statuses differ", f->name);

@@ -16,9 +16,13 @@ if [ "$#" -eq 0 ]; then set -- -seed=20261202 -runs=400000; fi
 # run may use undefined alone, or none (CTO_FUZZ_SANITIZE=): the library allocates nothing,
 # and the contract checks in the harness are what the run is for.
 san="${CTO_FUZZ_SANITIZE-address,undefined}"
+# The catalogue's generated sources (named functions, table rows, the named dispatch).
+/usr/bin/python3 "$root/lib/gen/gen_core.py" "$out/generated"
+mapfile -t sources < <(find "$root/lib/src" -name '*.cpp' | sort)
 clang++ -std=c++17 -O2 -g -fno-omit-frame-pointer -ffp-contract=off \
   -fsanitize=fuzzer${san:+,$san} -fno-sanitize-recover=all \
-  -I"$root/lib/include" "$root"/lib/src/*.cpp "$root/tests/fuzz/fuzz_capi.cpp" \
+  -I"$root/lib/include" -I"$root/lib/src" -I"$out/generated" "${sources[@]}" \
+  "$out/generated/named_entries.cpp" "$root/tests/fuzz/fuzz_capi.cpp" \
   -o "$out/fuzz_capi"
 corpus="$root/tests/fuzz/corpus"
 mkdir -p "$corpus"

@@ -1,0 +1,50 @@
+// Hand-written adapters of the functions whose C interface is a struct (lib/functions/
+// marks them `adapter = true`): their table thunk, and the one translation of the core's
+// outcome into the public struct that both the thunk and the named C function use.
+#ifndef CTO_CAPI_ADAPTERS_HPP
+#define CTO_CAPI_ADAPTERS_HPP
+
+#include "../models.hpp"
+#include "../table/convert.hpp"
+
+namespace cto::entry {
+
+// The solve outcome in the public struct (fields past out->size are not written).
+inline void publish(const core::SolveOut &so, cto_solve_outcome *out) {
+    out->own_share = so.own_share;
+    out->other_share = so.other_share;
+    out->own_no_deal = so.own_no_deal;
+    out->other_no_deal = so.other_no_deal;
+    out->binding = so.binding;
+    out->boundary = so.boundary ? 1 : 0;
+    out->deal_rational = so.rational ? 1 : 0;
+}
+
+// The table's doubles from the public struct: own_share, other_share, binding (NaN where
+// the status gives no answer: invalid, indeterminate, no convergence, internal) and
+// rational (NaN for invalid and internal).
+inline void to_values(int status, const cto_solve_outcome &c, double *o) {
+    o[0] = c.own_share;
+    o[1] = c.other_share;
+    o[2] = status == CTO_OK || status == CTO_E_NO_DEAL ? static_cast<double>(c.binding)
+                                                       : core::kNaN;
+    o[3] = status == CTO_E_INVALID || status == CTO_E_INTERNAL ? core::kNaN
+                                                               : (c.deal_rational ? 1.0 : 0.0);
+}
+
+inline int solve_thunk(const double *a, double *o, int *bad) {
+    bool opens;
+    if (!table::to_bool(a[10], opens)) return table::reject(10, o, 4, bad);
+    const core::SolveIn in{a[0], a[1], a[2], a[3], a[4], a[5], a[6], a[7], a[8], a[9], opens};
+    core::SolveOut so;
+    const int st = core::solve(in, &so, bad);
+    cto_solve_outcome c;
+    c.size = sizeof c;
+    publish(so, &c);
+    to_values(st, c, o);
+    return st;
+}
+
+}  // namespace cto::entry
+
+#endif  // CTO_CAPI_ADAPTERS_HPP
