@@ -1,0 +1,73 @@
+// Inverse CDFs of the input distributions; see distributions.hpp for the formulas.
+#include "distributions.hpp"
+
+#include <cmath>
+#include <limits>
+
+#include "beta.hpp"
+
+namespace cto::core::range {
+
+bool dist_valid(const Dist &d) {
+    switch (d.kind) {
+        case kFixed:
+            return std::isfinite(d.mode);
+        case kUniform:
+            return std::isfinite(d.low) && std::isfinite(d.high) && d.low <= d.high &&
+                   std::isfinite(d.high - d.low);
+        case kTriangular:
+        case kPert:
+            return std::isfinite(d.low) && std::isfinite(d.high) && std::isfinite(d.mode) &&
+                   d.low <= d.mode && d.mode <= d.high && std::isfinite(d.high - d.low);
+        default:
+            return false;
+    }
+}
+
+bool dist_uncertain(const Dist &d) {
+    return dist_valid(d) && d.kind != kFixed && d.low < d.high;
+}
+
+double dist_mode(const Dist &d) {
+    if (d.kind == kFixed) return d.mode;
+    if (d.kind == kUniform) return d.low == d.high ? d.low : d.low + 0.5 * (d.high - d.low);
+    return d.mode;
+}
+
+DistPlan dist_plan(const Dist &d) {
+    DistPlan p{d, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0};
+    if (d.kind == kFixed) return p;
+    p.width = d.high - d.low;
+    if (!(p.width > 0.0) || d.kind == kUniform) return p;
+    p.fm = (d.mode - d.low) / p.width;
+    p.one_minus_fm = (d.high - d.mode) / p.width;
+    if (d.kind == kPert) {
+        p.alpha = 1.0 + 4.0 * p.fm;
+        p.beta = 6.0 - p.alpha;
+        p.beta_fn = beta_sum6(p.alpha);
+    }
+    return p;
+}
+
+double dist_quantile(const DistPlan &p, double u) {
+    const Dist &d = p.d;
+    if (d.kind == kFixed) return d.mode;
+    if (!(p.width > 0.0)) return d.low;  // lo = hi: a constant
+    switch (d.kind) {
+        case kUniform:
+            return d.low + u * p.width;
+        case kTriangular:
+            if (u < p.fm) return d.low + p.width * std::sqrt(u * p.fm);
+            return d.high - p.width * std::sqrt((1.0 - u) * p.one_minus_fm);
+        default:  // kPert
+            if (u <= 0.5) return d.low + p.width * inc_beta_inv(u, p.alpha, p.beta, p.beta_fn);
+            return d.high - p.width * inc_beta_inv(1.0 - u, p.beta, p.alpha, p.beta_fn);
+    }
+}
+
+double dist_quantile(const Dist &d, double u) {
+    if (!dist_valid(d) || !(u > 0.0 && u < 1.0)) return std::numeric_limits<double>::quiet_NaN();
+    return dist_quantile(dist_plan(d), u);
+}
+
+}  // namespace cto::core::range

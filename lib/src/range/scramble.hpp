@@ -1,0 +1,48 @@
+// Nested uniform (Owen) scrambling of base-2 digits with a hash instead of stored random
+// bits, and the map of a scrambled coordinate to the open unit interval.
+//
+// Owen (1995, s.3; 1997a) scrambles a digital net by flipping digit k of every coordinate
+// with a random bit that depends only on the digits above it; the flips form a binary
+// tree of independent fair coins.  Here each coin is a hash of its tree node, keyed by
+// seed, replicate and dimension (in the spirit of Burley 2020), so that nothing is stored
+// and any point can be generated alone.  The exact rule (docs/models/ranges.md, "The
+// generator", step 3 and 4; REFERENCE-PRIVATE C.3 of the design notes):
+//   mix64(z): z = (z ^ z>>30) * 0xBF58476D1CE4E5B9; z = (z ^ z>>27) * 0x94D049BB133111EB;
+//             return z ^ z>>31                       (SplitMix64 finaliser, Steele et al. 2014)
+//   G = 0x9E3779B97F4A7C15
+//   key(S, r, j) = mix64(mix64(S ^ mix64(r + G)) ^ (j + 1) G)
+//   digit k = 1..32:  node = 2^(k-1) | (X >> (33 - k)),  flip = mix64(key ^ node G) >> 63
+//   u = (Y + 1/2) 2^-32  (exact in binary64; never 0 or 1)
+// All arithmetic is unsigned 64-bit modulo 2^64: identical bits on every platform.
+#ifndef CTO_RANGE_SCRAMBLE_HPP
+#define CTO_RANGE_SCRAMBLE_HPP
+
+#include <cstdint>
+
+namespace cto::core::range {
+
+inline constexpr uint64_t kGolden = 0x9E3779B97F4A7C15ull;
+
+// SplitMix64 finaliser (Steele, Lea & Flood 2014).
+inline uint64_t mix64(uint64_t z) {
+    z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
+    z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
+    return z ^ (z >> 31);
+}
+
+// The scrambling key of replicate r, 0-based dimension j, for seed S.
+inline uint64_t scramble_key(uint64_t seed, uint64_t replicate, uint64_t dim) {
+    return mix64(mix64(seed ^ mix64(replicate + kGolden)) ^ ((dim + 1) * kGolden));
+}
+
+// Owen-scrambled coordinate Y of the 32-digit coordinate X under `key`.
+uint32_t owen_scramble(uint32_t x, uint64_t key);
+
+// u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
+inline double unit_from_bits(uint32_t y) {
+    return (static_cast<double>(y) + 0.5) * 0x1p-32;
+}
+
+}  // namespace cto::core::range
+
+#endif  // CTO_RANGE_SCRAMBLE_HPP
