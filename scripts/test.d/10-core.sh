@@ -3,6 +3,8 @@
 source "$(dirname "${BASH_SOURCE[0]}")/../lib.sh"
 build_core "$CTO_BUILD/core" -DCTO_BUILD_TESTS=ON
 ctest --test-dir "$CTO_BUILD/core" --output-on-failure -j "$(nproc)"
+# The README's accuracy table is this run's report (lib/gen/gen_accuracy.py writes it).
+/usr/bin/python3 "$CTO_ROOT/lib/gen/gen_accuracy.py" "$CTO_BUILD/core/accuracy-report.tsv" --check
 build_core "$CTO_BUILD/asan" -DCTO_BUILD_TESTS=ON -DCTO_SANITIZE=address,undefined \
   -DCMAKE_BUILD_TYPE=RelWithDebInfo
 ASAN_OPTIONS=detect_leaks=1:abort_on_error=1 UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \

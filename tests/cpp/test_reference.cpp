@@ -274,6 +274,10 @@ TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]
 TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[reference]") {
     const size_t n = cto_function_count();
     size_t total_fail = 0;
+    // The accuracy report (function, rows, worst error, kind), from which
+    // lib/gen/gen_accuracy.py writes the README's accuracy table.
+    std::ofstream report(CTO_ACCURACY_REPORT);
+    report << "function\trows\tworst\tkind\n";
     for (size_t i = 0; i < n; ++i) {
         const cto_function_info *f = cto_function_find(cto_function_at(i)->name);
         REQUIRE(f != nullptr);
@@ -287,6 +291,8 @@ TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[re
                   << " rows, worst error " << std::setprecision(3) << std::scientific
                   << static_cast<double>(r.worst) << std::defaultfloat << " " << r.worst_kind
                   << " at line " << (r.worst_row + 2) << ", failures " << r.failures.size() << "\n";
+        report << f->name << "\t" << r.rows << "\t" << std::setprecision(3) << std::scientific
+               << static_cast<double>(r.worst) << std::defaultfloat << "\t" << r.worst_kind << "\n";
         size_t shown = 0;
         for (const auto &msg : r.failures) {
             if (shown++ < 12) std::cout << "  FAIL " << f->name << " " << msg << "\n";

@@ -1,0 +1,103 @@
+"""Writes the function tables of README.md and addin/README.md from the definitions.
+
+    python3 lib/gen/gen_docs.py           rewrite the tables in place
+    python3 lib/gen/gen_docs.py --check   exit 1 (naming the file) when a table is stale
+
+Each table stands between the markers <!-- generated:NAME --> and <!-- end:NAME --> in
+its file; the text around the markers is hand-written and left alone.  The accuracy
+table of README.md is written by lib/gen/gen_accuracy.py from the C++ test run's report.
+"""
+
+from __future__ import annotations
+
+import pathlib
+import re
+import sys
+from typing import Callable, Dict, List
+
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parent))
+import catalogue  # noqa: E402
+from catalogue import Function  # noqa: E402
+
+ROOT = catalogue.ROOT
+
+
+def _default_text(a: catalogue.Arg) -> str:
+    v = catalogue.python_default(a)
+    if isinstance(v, str):
+        return f'{a.name}="{v}"'
+    return f"{a.name}={v}"
+
+
+def inputs_text(f: Function) -> str:
+    return ", ".join(_default_text(a) if a.has_default else a.name for a in f.args)
+
+
+def camel(name: str) -> str:
+    return "".join(part[:1].upper() + part[1:] for part in name.split("_"))
+
+
+def readme_functions(functions: List[Function]) -> str:
+    rows = ["| name | Calc | inputs (Python defaults) | result | source |", "|---|---|---|---|---|"]
+    for f in functions:
+        rows.append(f"| {f.name} | {f.calc_name} | {inputs_text(f)} | {f.summary} | {f.source} |")
+    return "\n".join(rows)
+
+
+def addin_functions(functions: List[Function]) -> str:
+    rows = ["| Calc name | method | result |", "|---|---|---|"]
+    for f in functions:
+        rows.append(f"| {f.calc_name} | get{camel(f.name)} | {f.summary} |")
+        if len(f.outputs) > 1:
+            outs = "; ".join(f"{o.name}: {o.help}" for o in f.outputs)
+            rows.append(f"| {f.calc_name}OUTCOME | get{camel(f.name)}Outcome | "
+                        f"array of every output, in this order: {outs} |")
+    rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "
+                "argument after the usual conversion; has the argument shape of DEALSHARE (two "
+                "required, two optional) and measures call overhead |")
+    return "\n".join(rows)
+
+
+#: file -> {table name: writer}
+TABLES: Dict[str, Dict[str, Callable[[List[Function]], str]]] = {
+    "README.md": {"functions": readme_functions},
+    "addin/README.md": {"functions": addin_functions},
+}
+
+
+def replace_block(text: str, name: str, body: str, path: str) -> str:
+    pattern = re.compile(rf"(<!-- generated:{name} -->\n)(.*?)(<!-- end:{name} -->)", re.S)
+    if not pattern.search(text):
+        raise SystemExit(f"error: {path} has no <!-- generated:{name} --> ... <!-- end:{name} --> block")
+    return pattern.sub(lambda m: m.group(1) + body + "\n" + m.group(3), text)
+
+
+def render(path: str, text: str, functions: List[Function]) -> str:
+    for name, writer in TABLES[path].items():
+        text = replace_block(text, name, writer(functions), path)
+    return text
+
+
+def main(argv: List[str]) -> int:
+    check = "--check" in argv[1:]
+    functions = catalogue.load()
+    stale = []
+    for rel in TABLES:
+        path = ROOT / rel
+        old = path.read_text(encoding="utf-8")
+        new = render(rel, old, functions)
+        if new != old:
+            if check:
+                stale.append(rel)
+            else:
+                path.write_text(new, encoding="utf-8")
+                print(f"updated {rel}")
+    if stale:
+        print("stale generated tables in: " + ", ".join(stale)
+              + " (run python3 lib/gen/gen_docs.py)", file=sys.stderr)
+        return 1
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main(sys.argv))
