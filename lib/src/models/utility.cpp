@@ -120,10 +120,12 @@ struct Party {
 
 }  // namespace
 
-int risk_averse_share(double own_factor, double other_factor, double own_curvature,
-                      double other_curvature, int utility, double p, double own_fallback,
-                      double other_fallback, double surplus, bool own_opens, double *out,
-                      int *bad) {
+namespace {
+
+// The argument checks of risk_averse_share, in catalogue order.
+Check check_risk_averse(double own_factor, double other_factor, double own_curvature,
+                        double other_curvature, int utility, double p, double own_fallback,
+                        double other_fallback, double surplus) {
     Check c;
     c.unit(own_factor, 0);
     c.unit(other_factor, 1);
@@ -140,6 +142,65 @@ int risk_averse_share(double own_factor, double other_factor, double own_curvatu
         if (own_fallback < 0.0) c.fail(6);
         if (other_fallback < 0.0) c.fail(7);
     }
+    return c;
+}
+
+enum { kBadBracket = -1 };
+
+// A's proposer share x, the root of H(x) = f_B(y(x)) - f_A(x) = T(x) - x with
+// y(x) = S - r_A(x): strictly decreasing, zero at the equilibrium.  It is a difference of
+// two small, accurately computed gaps, so the root is well conditioned even with factors
+// within 1e-9 of 1.  Returns CTO_OK, CTO_E_NO_CONVERGENCE or kBadBracket (the bracket
+// overflowed).
+int proposer_share(const Party &A, const Party &B, double S, double *x) {
+    const bool power = A.utility == CTO_UTILITY_POWER;
+    auto y_of = [&](double v) {
+        const double y = S - v + A.f(v);
+        return power ? std::max(y, 0.0) : y;
+    };
+    auto H = [&](double v) { return B.f(y_of(v)) - A.f(v); };
+    double lo = 0.0, hi = S;
+    if (!power) {
+        // T maps the line into [S - r_B(inf), S - r_B(S - r_A(inf))]; widen a little
+        // so that rounding cannot put the root outside.
+        const double L = S - B.r_at_infinity();
+        const double U = S - B.r(S - A.r_at_infinity());
+        const double m = 1e-9 * (std::fabs(L) + std::fabs(U) + std::fabs(S));
+        lo = std::min(L, U) - m;
+        hi = std::max(L, U) + m;
+        if (!std::isfinite(lo) || !std::isfinite(hi)) return kBadBracket;
+    }
+    num::Root root{kNaN, false};
+    if (!power) {
+        // CARA: Newton's method on H with its derivative, H' = f_B'(y) y' - f_A'(x),
+        // y' = f_A'(x) - 1 (both from the exponentials f already takes), started at the
+        // risk-neutral Rubinstein share with factors alpha.  It needs a third of Brent's
+        // evaluations; Brent remains the fallback.
+        auto HD = [&](double v, double &dH) {
+            double dA, dB;
+            const double fA = A.f_exp(v, dA);
+            const double fB = B.f_exp(S - v + fA, dB);
+            dH = dB * (dA - 1.0) - dA;
+            return fB - fA;
+        };
+        double x0 = S * (B.om / (A.om + A.alpha * B.om));
+        if (!(x0 > lo && x0 < hi)) x0 = 0.5 * (lo + hi);
+        root = num::newton_decreasing(HD, lo, hi, x0);
+    }
+    if (!root.converged) root = num::brent(H, lo, hi, H(lo), H(hi));
+    if (!root.converged) return CTO_E_NO_CONVERGENCE;
+    *x = root.x;
+    return CTO_OK;
+}
+
+}  // namespace
+
+int risk_averse_share(double own_factor, double other_factor, double own_curvature,
+                      double other_curvature, int utility, double p, double own_fallback,
+                      double other_fallback, double surplus, bool own_opens, double *out,
+                      int *bad) {
+    const Check c = check_risk_averse(own_factor, other_factor, own_curvature, other_curvature,
+                                      utility, p, own_fallback, other_fallback, surplus);
     if (!c.ok()) return invalid(c, out, bad);
 
     const double S = surplus;
@@ -169,52 +230,14 @@ int risk_averse_share(double own_factor, double other_factor, double own_curvatu
                                    : S * (std::exp(lB) * -std::expm1(lA) / den);
         return finish(v, out, bad, 8);
     }
-
-    // x: A's proposer share.  y(x) = S - r_A(x);  H(x) = f_B(y(x)) - f_A(x) = T(x) - x,
-    // strictly decreasing, zero at the equilibrium.  It is a difference of two small,
-    // accurately computed gaps, so the root is well conditioned even with factors
-    // within 1e-9 of 1.
-    const bool power = utility == CTO_UTILITY_POWER;
-    auto y_of = [&](double x) {
-        const double y = S - x + A.f(x);
-        return power ? std::max(y, 0.0) : y;
-    };
-    auto H = [&](double x) { return B.f(y_of(x)) - A.f(x); };
-    double lo, hi;
-    if (power) {
-        lo = 0.0;
-        hi = S;
-    } else {
-        // T maps the line into [S - r_B(inf), S - r_B(S - r_A(inf))]; widen a little
-        // so that rounding cannot put the root outside.
-        const double L = S - B.r_at_infinity();
-        const double U = S - B.r(S - A.r_at_infinity());
-        const double m = 1e-9 * (std::fabs(L) + std::fabs(U) + std::fabs(S));
-        lo = std::min(L, U) - m;
-        hi = std::max(L, U) + m;
-        if (!std::isfinite(lo) || !std::isfinite(hi)) return invalid_at(8, out, bad);
-    }
-    num::Root root{kNaN, false};
-    if (!power) {
-        // CARA: Newton's method on H with its derivative, H' = f_B'(y) y' - f_A'(x),
-        // y' = f_A'(x) - 1 (both from the exponentials f already takes), started at the
-        // risk-neutral Rubinstein share with factors alpha.  It needs a third of Brent's
-        // evaluations; Brent remains the fallback.
-        auto HD = [&](double x, double &dH) {
-            double dA, dB;
-            const double fA = A.f_exp(x, dA);
-            const double fB = B.f_exp(S - x + fA, dB);
-            dH = dB * (dA - 1.0) - dA;
-            return fB - fA;
-        };
-        double x0 = S * (B.om / (A.om + A.alpha * B.om));
-        if (!(x0 > lo && x0 < hi)) x0 = 0.5 * (lo + hi);
-        root = num::newton_decreasing(HD, lo, hi, x0);
-    }
-    if (!root.converged) root = num::brent(H, lo, hi, H(lo), H(hi));
-    if (!root.converged) return status_only(CTO_E_NO_CONVERGENCE, kNaN, out, bad);
-    const double x = root.x;
-    const double v = own_opens ? x : B.r(y_of(x));
+    double x = kNaN;
+    const int st = proposer_share(A, B, S, &x);
+    if (st == kBadBracket) return invalid_at(8, out, bad);
+    if (st != CTO_OK) return status_only(st, kNaN, out, bad);
+    // Own's payoff as responder: the value of rejecting A's offer, r_B(y(x)).
+    double y = S - x + A.f(x);
+    if (utility == CTO_UTILITY_POWER) y = std::max(y, 0.0);
+    const double v = own_opens ? x : B.r(y);
     return finish(v, out, bad, 8);
 }
 
