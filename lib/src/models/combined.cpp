@@ -6,6 +6,7 @@
 #include <cmath>
 
 #include "combined.hpp"
+#include "combined_game.hpp"
 
 namespace cto::core {
 
@@ -16,156 +17,151 @@ namespace {
 
 enum { kOverflow = -1 };
 
-// Solves with the opener called A.  Inputs are already validated.  Returns a CTO_*
-// status or kOverflow (finite inputs whose combination overflows).
-int solve_core(const SolveIn &in, SolveOut *o) {
-    const bool own_a = in.own_opens;
-    const double dA = own_a ? in.own_factor : in.other_factor;
-    const double dB = own_a ? in.other_factor : in.own_factor;
-    const double bA = own_a ? in.own_fallback : in.other_fallback;
-    const double bB = own_a ? in.other_fallback : in.own_fallback;
-    const double gA = own_a ? in.own_inside : in.other_inside;
-    const double gB = own_a ? in.other_inside : in.own_inside;
-    const double wA = own_a ? in.own_outside : in.other_outside;
-    const double wB = own_a ? in.other_outside : in.own_outside;
-    const double p = in.p, S = in.surplus, q1 = 1.0 - p;
+// Each side's per-round factor d and 1 - d (formed without cancellation by the caller).
+struct Factors {
+    double own_d, own_om, oth_d, oth_om;
+};
 
-    // alpha_i = (1 - p) d_i is the chance-weighted factor; 1 - alpha_i is formed as
-    // p + (1 - p)(1 - d_i), a sum of non-negative terms.
-    const double omdA = 1.0 - dA, omdB = 1.0 - dB;
-    const double aA = q1 * dA, aB = q1 * dB;
-    const double omA = p + q1 * omdA, omB = p + q1 * omdB;
+// One side of the game (combined_game.hpp) from its inputs.  With a = (1-p) d, 1 - a is
+// formed as p + (1-p)(1-d), a sum of non-negative terms.  The value of perpetual
+// disagreement d0 = (p b + (1-p)(1-d) g) / (1 - a) is a weighted mean of the fallback and
+// the status quo (exactly g when p = 0, b when p = 1, g when 1 - a = 0).
+game::Side make_side(double d, double omd, double p, double b, double g, double w) {
+    game::Side s;
+    const double q1 = 1.0 - p;
+    s.a = q1 * d;
+    s.om = p + q1 * omd;
+    s.d0 = s.om == 0.0 ? g : (p / s.om) * b + (q1 * omd / s.om) * g;
+    s.has = w != -kInf;
+    s.w = w;
+    s.n = s.has ? w : s.d0;
+    return s;
+}
 
-    // No-deal value of waiting: d0 = (p b + (1-p)(1-d) g) / (1 - alpha), a weighted
-    // mean of the fallback and the inside option (exactly g when p = 0, b when p = 1).
-    auto wait_value = [&](double om, double omd, double b, double g) {
-        if (om == 0.0) return g;  // p = 0 and d = 1: the status quo forever
-        return (p / om) * b + (q1 * omd / om) * g;
-    };
-    const double d0A = wait_value(omA, omdA, bA, gA);
-    const double d0B = wait_value(omB, omdB, bB, gB);
-    o->binding = CTO_BINDS_NONE;
-    o->boundary = false;
-    o->rational = false;
-
-    // The model on the surplus above (d0A, d0B): factors alpha, options W = w - d0.
-    const double Sp = S - d0A - d0B;
-    const double WA = wA - d0A, WB = wB - d0B;  // -inf stays -inf (absent)
-    if (!std::isfinite(Sp) || !std::isfinite(d0A) || !std::isfinite(d0B) ||
-        (std::isfinite(wA) && !std::isfinite(WA)) || (std::isfinite(wB) && !std::isfinite(WB)))
-        return kOverflow;
-    const bool hasA = WA > 0.0, hasB = WB > 0.0;  // only a positive W can bind
-    // No-deal payoffs.  A side whose walk-away value beats waiting walks away at its first
-    // answer, which ends the talks for both: each side with a walk-away option then gets
-    // it, even one whose option is worse than waiting; a side without one keeps its value
-    // of waiting (its status quo and breakdown prospects).  Otherwise nobody walks and
-    // each gets its value of waiting, d0.
-    const bool walks = hasA || hasB;
-    const double ndA = walks && std::isfinite(wA) ? wA : d0A;
-    const double ndB = walks && std::isfinite(wB) ? wB : d0B;
-    o->own_no_deal = own_a ? ndA : ndB;
-    o->other_no_deal = own_a ? ndB : ndA;
-    // Rational iff S exceeds the sum of the no-deal payoffs, decided exactly.
-    if (!exceeds(S, ndA, ndB)) {
-        o->own_share = o->own_no_deal;
-        o->other_share = o->other_no_deal;
-        return CTO_E_NO_DEAL;
+// Payoffs when no agreement can be signed (the no-deal fields of a rational deal): the
+// same game with every offer unacceptable.  A responder walks away when its walk-away
+// value is at least its value of rejecting; the state values of the four combinations
+// (walk or reject in each state) are known in closed form, and the one they confirm is
+// kept (perpetual disagreement first).  Writes the payoffs of the game own (A) opens or
+// other (B) opens.
+void no_agreement(const game::Side &A, const game::Side &B, bool own_a, double *nd_own,
+                  double *nd_oth) {
+    double XA = A.d0, TB = B.d0, ZA = A.d0, YB = B.d0;  // nobody walks
+    const bool stay = (!A.has || A.w < A.d0) && (!B.has || B.w < B.d0);
+    const bool b_walks_back = B.has && B.w >= B.cont(B.n);  // given A walks when B proposes
+    const bool a_walks_back = A.has && A.w >= A.cont(A.n);  // given B walks when A proposes
+    if (!stay) {
+        if (b_walks_back && a_walks_back) {
+            XA = A.n, TB = B.w, ZA = A.w, YB = B.n;
+        } else if (B.has && !a_walks_back && B.w >= B.cont(B.cont(B.w))) {
+            XA = A.n, TB = B.w, ZA = A.cont(A.n), YB = B.cont(B.w);  // only B walks
+        } else if (A.has && !b_walks_back && A.w >= A.cont(A.cont(A.w))) {
+            ZA = A.w, YB = B.n, XA = A.cont(A.w), TB = B.cont(B.n);  // only A walks
+        }
     }
-    o->rational = true;
-    if (aA == 1.0 && aB == 1.0) {
+    *nd_own = own_a ? XA : ZA;
+    *nd_oth = own_a ? TB : YB;
+}
+
+// Each side's loss if the first offer is refused and play goes on from the next round,
+// and own's payoff opening minus responding.  A responder whose option does not bind
+// gets exactly its value of rejecting (loss 0); in Rubinstein's loop the opener's loss
+// x (1 - a^2) and the advantage x (1 - a) are formed from the share x above d0.
+void set_losses(const game::Side &A, const game::Side &B, const game::Stationary &v,
+                bool own_a, SolveOut *o) {
+    double lossA = own_a ? v.XA - A.cont(v.ZA) : v.ZA - A.cont(v.XA);
+    double lossB = own_a ? v.TB - B.cont(v.YB) : v.YB - B.cont(v.TB);
+    o->opening_advantage = v.XA - v.ZA;
+    if (own_a && !game::binds(v.ka)) lossB = 0.0;
+    if (!own_a && !game::binds(v.kb)) lossA = 0.0;
+    if (v.ka == game::kAgreeFree && v.kb == game::kAgreeFree) {
+        const double xA = v.XA - A.d0;  // share above d0 (the closed form's product)
+        const double yB = v.YB - B.d0;
+        if (own_a) lossA = xA * (A.om * (1.0 + A.a));
+        else lossB = yB * (B.om * (1.0 + B.a));
+        o->opening_advantage = xA * A.om;
+    }
+    o->own_delay_loss = lossA;
+    o->other_delay_loss = lossB;
+}
+
+// Solves with own called A.  Inputs are already validated.  Returns a CTO_* status or
+// kOverflow (finite inputs whose combination overflows).
+int solve_core(const SolveIn &in, const Factors &f, SolveOut *o) {
+    const game::Side A = make_side(f.own_d, f.own_om, in.p, in.own_fallback, in.own_inside,
+                                   in.own_outside);
+    const game::Side B = make_side(f.oth_d, f.oth_om, in.p, in.other_fallback,
+                                   in.other_inside, in.other_outside);
+    const double S = in.surplus;
+    if (!std::isfinite(A.d0) || !std::isfinite(B.d0) || !std::isfinite((S - A.d0) - B.d0) ||
+        (A.has && !std::isfinite(A.w - A.d0)) || (B.has && !std::isfinite(B.w - B.d0)))
+        return kOverflow;
+    const game::Stationary v = game::solve_stationary(A, B, S);
+    o->boundary = v.boundary;
+    o->delayed = false;
+    if (v.indeterminate) {
         o->own_share = o->other_share = kNaN;
+        o->own_no_deal = o->other_no_deal = kNaN;
+        o->own_delay_loss = o->other_delay_loss = o->opening_advantage = kNaN;
+        o->binding = CTO_BINDS_NONE;
+        o->rational = true;
         return CTO_E_INDETERMINATE;
     }
-
-    const double den = rub_den(aA, omA, omB);  // 1 - alpha_A alpha_B
-    const double UA = rub_opener(Sp, omB, den);  // A's proposer share, regime (i)
-    const double UB = rub_opener(Sp, omA, den);  // B's proposer share, regime (i)
-    double X, R;                                  // A's amount, B's amount (above d0)
-    int regime;
-    if ((!hasA || WA <= aA * UA) && (!hasB || WB <= aB * UB)) {
-        regime = 1;  // (i) neither option binds: Rubinstein on Sp
-        X = UA;
-        R = rub_responder(Sp, aB, omA, den);
-    } else if (hasB && WB > aB * UB && (!hasA || WA <= aA * (Sp - WB))) {
-        regime = 2;  // (ii) B's option binds: B as responder gets exactly W_B
-        X = Sp - WB;
-        R = WB;
-    } else if (hasA && WA > aA * UA && (!hasB || WB <= aB * (Sp - WA))) {
-        regime = 3;  // (iii) A's option binds: B proposes S - W_A, A offers aB of it
-        const double Y = Sp - WA;
-        X = omB * Sp + aB * WA;  // = Sp - aB (Sp - WA), without cancellation
-        R = aB * Y;
-    } else {
-        regime = 4;  // (iv) both bind
-        X = Sp - WB;
-        R = WB;
+    // The game own opens is played from state A, the one other opens from state B.
+    const bool own_a = in.own_opens;
+    const game::Kind k0 = own_a ? v.ka : v.kb, k1 = own_a ? v.kb : v.ka;
+    o->rational = game::agrees(k0) || (k0 == game::kReject && game::agrees(k1));
+    o->delayed = o->rational && !game::agrees(k0);
+    o->own_share = own_a ? v.XA : v.ZA;
+    o->other_share = own_a ? v.TB : v.YB;
+    set_losses(A, B, v, own_a, o);
+    if (!std::isfinite(o->own_share) || !std::isfinite(o->other_share)) return kOverflow;
+    if (!o->rational) {
+        o->own_no_deal = o->own_share;
+        o->other_no_deal = o->other_share;
+        o->binding = CTO_BINDS_NONE;
+        return CTO_E_NO_DEAL;
     }
-    // Boundary: an option within 1e-12 x surplus of a threshold (REFERENCE s.12).
-    const double tol = 1e-12 * std::fabs(S);
-    bool boundary = false;
-    if (hasA && std::fabs(WA - aA * UA) <= tol) boundary = true;
-    if (hasB && std::fabs(WB - aB * UB) <= tol) boundary = true;
-    if (hasA && hasB &&
-        (std::fabs(WA - aA * (Sp - WB)) <= tol || std::fabs(WB - aB * (Sp - WA)) <= tol))
-        boundary = true;
-
-    // Shares in money.  Where an option binds, the binding side's payoff is formed from
-    // the inputs directly (exactly w_B in (ii) and (iv); a weighted mean in (iii)), which
-    // avoids adding back d0 after subtracting it.
-    double shareA, shareB;
-    switch (regime) {
-        case 1:
-            shareA = d0A + X;
-            shareB = d0B + R;
-            break;
-        case 3: {  // A's option binds: x = (1 - a_B)(S - d0_B) + a_B w_A
-            // A can use its option only as a responder, one round on.  Agreeing now leaves
-            // it x; refusing its own offer and walking at the next answer is worth
-            // d0_A + a_A W_A.  The gain from agreeing now is (1-a_B) Y + (1-a_A) W_A with
-            // Y = Sp - W_A; it is negative only when W_A exceeds Sp (a deal made rational
-            // by the other side's poor walk-away value).  Then the equilibrium has one
-            // round of delay: B proposes next and gives A exactly w_A, and both shares are
-            // present values that add up to less than the surplus.
-            const double Y = Sp - WA;
-            if (omB * Y + omA * WA < 0.0) {
-                shareA = d0A + aA * WA;
-                shareB = d0B + aB * Y;
-            } else {
-                shareA = omB * (S - d0B) + aB * wA;
-                shareB = S - shareA;
-            }
-            break;
-        }
-        default:  // (ii), (iv): B as responder gets exactly its walk-away value
-            shareB = wB;
-            shareA = S - wB;
-            break;
-    }
-    if (!std::isfinite(shareA) || !std::isfinite(shareB)) return kOverflow;
-    o->own_share = own_a ? shareA : shareB;
-    o->other_share = own_a ? shareB : shareA;
-    const bool a_binds = regime == 3 || regime == 4, b_binds = regime == 2 || regime == 4;
-    const bool own_binds = own_a ? a_binds : b_binds;
-    const bool oth_binds = own_a ? b_binds : a_binds;
+    no_agreement(A, B, own_a, &o->own_no_deal, &o->other_no_deal);
+    const bool own_binds = game::binds(v.kb), oth_binds = game::binds(v.ka);
     o->binding = own_binds ? (oth_binds ? CTO_BINDS_BOTH : CTO_BINDS_OWN)
                            : (oth_binds ? CTO_BINDS_OTHER : CTO_BINDS_NONE);
-    o->boundary = boundary;
     return CTO_OK;
 }
 
 void nan_outcome(SolveOut *o) {
     o->own_share = o->other_share = o->own_no_deal = o->other_no_deal = kNaN;
+    o->own_delay_loss = o->other_delay_loss = o->opening_advantage = kNaN;
     o->binding = CTO_BINDS_NONE;
     o->boundary = false;
     o->rational = false;
+    o->delayed = false;
+}
+
+// 1 - d for a factor given as a double: exact for d >= 1/2 (Sterbenz), one rounding below.
+Factors plain_factors(double own_d, double oth_d) {
+    return Factors{own_d, 1.0 - own_d, oth_d, 1.0 - oth_d};
 }
 
 // Runs solve_core for a special-case function; `surplus_index` is blamed on overflow.
 int solve_own(const SolveIn &in, int surplus_index, double *out, int *bad) {
     SolveOut o;
-    const int st = solve_core(in, &o);
+    const int st = solve_core(in, plain_factors(in.own_factor, in.other_factor), &o);
     if (st == kOverflow) return invalid_at(surplus_index, out, bad);
     return status_only(st, o.own_share, out, bad);
+}
+
+// The validated model: solve_core, with overflow reported as an invalid surplus.
+int solve_checked(const SolveIn &in, const Factors &f, int surplus_index, SolveOut *out,
+                  int *bad) {
+    const int st = solve_core(in, f, out);
+    if (st == kOverflow) {
+        nan_outcome(out);
+        if (bad) *bad = surplus_index;
+        return CTO_E_INVALID;
+    }
+    if (bad) *bad = -1;
+    return st;
 }
 
 }  // namespace
@@ -182,18 +178,43 @@ int solve(const SolveIn &in, SolveOut *out, int *bad) {
     c.optional(in.own_outside, 7);
     c.optional(in.other_outside, 8);
     c.real(in.surplus, 9);
-    if (bad) *bad = c.bad;
     if (!c.ok()) {
+        if (bad) *bad = c.bad;
         nan_outcome(out);
         return CTO_E_INVALID;
     }
-    const int st = solve_core(in, out);
-    if (st == kOverflow) {
+    return solve_checked(in, plain_factors(in.own_factor, in.other_factor), 9, out, bad);
+}
+
+int solve_rates(const SolveRatesIn &in, SolveOut *out, int *bad) {
+    Check c;
+    c.nonneg(in.own_rate, 0);
+    c.nonneg(in.other_rate, 1);
+    c.nonneg(in.days, 2);
+    c.unit(in.p, 3);
+    c.real(in.own_fallback, 4);
+    c.real(in.other_fallback, 5);
+    c.real(in.own_inside, 6);
+    c.real(in.other_inside, 7);
+    c.optional(in.own_outside, 8);
+    c.optional(in.other_outside, 9);
+    c.real(in.surplus, 10);
+    c.positive(in.basis, 12);
+    if (!c.ok()) {
+        if (bad) *bad = c.bad;
         nan_outcome(out);
-        if (bad) *bad = 9;
         return CTO_E_INVALID;
     }
-    return st;
+    // d = exp(-rho) and 1 - d = -expm1(-rho): full relative accuracy of 1 - d however
+    // close the factor is to 1 (share_from_rates does the same).
+    const double rho_own = log_discount(in.own_rate, in.days, in.basis, in.continuous);
+    const double rho_oth = log_discount(in.other_rate, in.days, in.basis, in.continuous);
+    const Factors f{std::exp(-rho_own), -std::expm1(-rho_own), std::exp(-rho_oth),
+                    -std::expm1(-rho_oth)};
+    const SolveIn si{f.own_d,          f.oth_d,        in.p,           in.own_fallback,
+                     in.other_fallback, in.own_inside, in.other_inside, in.own_outside,
+                     in.other_outside,  in.surplus,    in.own_opens};
+    return solve_checked(si, f, 10, out, bad);
 }
 
 int breakdown_share(double own_factor, double other_factor, double p, double own_fallback,
