@@ -82,6 +82,12 @@ def rows(functions: List[Function]) -> str:
         out.append(f"const cto_arg_info kArgs_{f.name}[] = {{")
         out += [_arg_info(f, a) for a in f.args]
         out.append("};")
+        out.append(f"// (has a plausible range, low, high) per argument")
+        out.append(f"constexpr double kPlausible_{f.name}[][3] = {{")
+        for a in f.args:
+            lo, hi = a.plausible if a.plausible else (0.0, 0.0)
+            out.append(f"    {{{1.0 if a.plausible else 0.0}, {c_double(lo)}, {c_double(hi)}}},")
+        out.append("};")
         out.append(f"const cto_output_info kOutputs_{f.name}[] = {{")
         out += [f"    {{{c_string(o.name)}, {c_string(o.help)}}}," for o in f.outputs]
         out.append("};")

@@ -231,3 +231,29 @@ TEST_CASE("runtime version equals the header's", "[version]") {
           std::to_string(CTO_VERSION_MAJOR) + "." + std::to_string(CTO_VERSION_MINOR) + "." +
               std::to_string(CTO_VERSION_PATCH));
 }
+
+TEST_CASE("plausible ranges: rates, days, breakdown and basis; none elsewhere", "[bad_input]") {
+    // The thresholds of a typed percentage (8 for 8%) and similar slips: common practice,
+    // no source (a rate above 100% a year, more than ten years between offers, talks more
+    // likely to end than to go on after a rejection, day bases 360 to 366).
+    double lo = 0.0, hi = 0.0;
+    const cto_function_info *f = cto_function_find("share_from_rates");
+    REQUIRE(f != nullptr);
+    REQUIRE(cto_arg_plausible_range(f->id, 0, &lo, &hi) == CTO_OK);
+    CHECK(lo == 0.0);
+    CHECK(hi == 1.0);
+    REQUIRE(cto_arg_plausible_range(f->id, 2, &lo, &hi) == CTO_OK);
+    CHECK(hi == 3650.0);
+    REQUIRE(cto_arg_plausible_range(f->id, 5, &lo, &hi) == CTO_OK);  // basis
+    CHECK(lo == 360.0);
+    CHECK(hi == 366.0);
+    CHECK(cto_arg_plausible_range(f->id, 3, &lo, &hi) == CTO_E_INVALID);  // surplus: none
+    CHECK(std::isnan(lo));
+    const cto_function_info *s = cto_function_find("solve");
+    REQUIRE(cto_arg_plausible_range(s->id, 2, &lo, &hi) == CTO_OK);  // breakdown_prob
+    CHECK(hi == 0.5);
+    CHECK(cto_arg_plausible_range(s->id, 99, nullptr, nullptr) == CTO_E_INVALID);
+    CHECK(cto_arg_plausible_range(-1, 0, &lo, &hi) == CTO_E_INVALID);
+    CHECK(cto_arg_plausible_range(static_cast<int>(cto_function_count()), 0, &lo, &hi) ==
+          CTO_E_INVALID);
+}

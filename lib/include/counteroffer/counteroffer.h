@@ -41,7 +41,7 @@
 /* ---- Version ------------------------------------------------------------- */
 /* The single source of the version: CMake reads these three lines. */
 #define CTO_VERSION_MAJOR 1
-#define CTO_VERSION_MINOR 0
+#define CTO_VERSION_MINOR 1
 #define CTO_VERSION_PATCH 0
 #define CTO_VERSION_NUMBER \
     (CTO_VERSION_MAJOR * 10000 + CTO_VERSION_MINOR * 100 + CTO_VERSION_PATCH)
@@ -515,6 +515,16 @@ CTO_API size_t cto_function_count(void);
 CTO_API const cto_function_info *cto_function_at(size_t index);
 /* The function with catalogue name `name`, NULL when there is none. */
 CTO_API const cto_function_info *cto_function_find(const char *name);
+
+/*! cto_arg_plausible_range: the range of values of argument `arg_index` of function
+ *  `function_id` that look like what a user means.  A value outside it is still valid and
+ *  computed, but looks like a typing slip: a rate of 8 (800% a year) typed for 8%, more
+ *  than 3650 days between offers, a breakdown probability above 0.5 a round, a day basis
+ *  outside 360 to 366.  Returns CTO_OK and writes low and high (either pointer may be
+ *  NULL) when the argument has such a range; CTO_E_INVALID with NaN otherwise (no range,
+ *  or an unknown function or argument).  Added in 1.1. */
+CTO_API int cto_arg_plausible_range(int function_id, int arg_index, double *low,
+                                    double *high);
 
 /*! cto_call: evaluate catalogue function `id` with all n_args arguments as
  *  doubles (defaults are not applied here: pass every argument).  Writes

@@ -35,7 +35,7 @@ namespace {
     Row{{sizeof(cto_function_info), id, #name, calc, summary, formula, source, statuses,      \
          CTO_N_OF(kArgs_##name), kArgs_##name, CTO_N_OF(kOutputs_##name), kOutputs_##name}, \
         t_##name,                                                                            \
-        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>},
+        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>, kPlausible_##name},
 
 const Row kRows[] = {CTO_CATALOGUE_ROWS};
 constexpr size_t kCount = sizeof(kRows) / sizeof(kRows[0]);
@@ -57,6 +57,15 @@ CTO_API size_t cto_function_count(void) { return cto::table::row_count(); }
 CTO_API const cto_function_info *cto_function_at(size_t index) {
     const cto::table::Row *r = cto::table::row(index < cto::table::row_count() ? static_cast<int>(index) : -1);
     return r ? &r->info : nullptr;
+}
+
+CTO_API int cto_arg_plausible_range(int function_id, int arg_index, double *low, double *high) {
+    const cto::table::Row *r = cto::table::row(function_id);
+    const bool known = r && arg_index >= 0 && arg_index < r->info.n_args;
+    const bool has = known && r->plausible[arg_index][0] != 0.0;
+    if (low) *low = has ? r->plausible[arg_index][1] : cto::core::kNaN;
+    if (high) *high = has ? r->plausible[arg_index][2] : cto::core::kNaN;
+    return has ? CTO_OK : CTO_E_INVALID;
 }
 
 CTO_API const cto_function_info *cto_function_find(const char *name) {

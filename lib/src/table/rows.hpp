@@ -14,6 +14,7 @@ struct Row {
     cto_function_info info;
     Thunk thunk;
     Loop loop;
+    const double (*plausible)[3];  // per argument: (has a range, low, high)
 };
 
 // The row of catalogue id, or nullptr.
