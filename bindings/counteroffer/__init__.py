@@ -14,14 +14,18 @@ Conventions
 Arrays
     Every function is a NumPy ufunc underneath: scalars give a Python float, any mix of
     scalars, lists and arrays broadcasts, ``out=`` works, results are float64, a pandas
-    Series gives a Series with its index, dask arrays give lazy dask arrays.  The loops
+    Series gives a Series with its index, dask arrays and dask DataFrame columns give
+    lazy results.  Which walk-away value binds is a word ("none", "ours", "theirs",
+    "both") and whether a deal is rational a bool, in scalar and array results alike.  The loops
     run in C with the GIL released; long arrays are split over a few threads
     (``set_num_threads``).
 
 Errors
     See ``errstate``: invalid input raises ``ValueError`` naming the argument and its
     value; "no deal" returns own's no-deal payoff with a ``NoDealWarning``;
-    indeterminate and non-converged results are NaN with a warning.
+    indeterminate and non-converged results are NaN with a warning; a value outside
+    its plausible range (a rate typed as 8 for 8%) is used as given, with an
+    ``ImplausibleInputWarning``.
 
 Functions
 {functions}
@@ -42,6 +46,8 @@ from ._errors import (
     CounterofferWarning,
     IndeterminateError,
     IndeterminateWarning,
+    ImplausibleInputError,
+    ImplausibleInputWarning,
     InternalError,
     InternalWarning,
     InvalidArgumentError,
@@ -54,8 +60,10 @@ from ._errors import (
     geterr,
     seterr,
 )
-from ._api import ArrayResult, load_specs, make_function
 from ._docs import build_doc
+from ._factory import make_function
+from ._results import ArrayResult
+from ._spec import load_specs
 
 __version__: str = _core.version()
 if __version__ != _core.HEADER_VERSION:  # the sqlite-style start-up check
@@ -65,7 +73,7 @@ if __version__ != _core.HEADER_VERSION:  # the sqlite-style start-up check
     )
 
 for _cls in (CounterofferError, CounterofferWarning, IndeterminateError, IndeterminateWarning,
-             InternalError, InternalWarning, InvalidArgumentError, InvalidArgumentWarning,
+             ImplausibleInputError, ImplausibleInputWarning, InternalError, InternalWarning, InvalidArgumentError, InvalidArgumentWarning,
              NoConvergenceError, NoConvergenceWarning, NoDealError, NoDealWarning):
     _cls.__module__ = __name__
 
@@ -90,6 +98,8 @@ __all__: List[str] = [s.name for s in catalogue] + [
     "CounterofferWarning",
     "IndeterminateError",
     "IndeterminateWarning",
+    "ImplausibleInputError",
+    "ImplausibleInputWarning",
     "InternalError",
     "InternalWarning",
     "InvalidArgumentError",

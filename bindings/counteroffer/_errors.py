@@ -1,7 +1,9 @@
 """Error policy of the Python package: warning and error classes, ``errstate``.
 
 The library reports a status for every element (names from ``cto_status_name``):
-``invalid``, ``no_deal``, ``indeterminate``, ``no_convergence``, ``internal``.
+``invalid``, ``no_deal``, ``indeterminate``, ``no_convergence``, ``internal``; and one
+category of the package's own, ``implausible``: a valid value outside the plausible
+range the library gives its argument (a rate typed as 8 for 8%).
 The wrappers gather the statuses of one call and apply this policy once, after the
 loop.  Each category takes one action:
 
@@ -14,7 +16,9 @@ loop.  Each category takes one action:
     return the library's output silently.
 
 Defaults: ``invalid="raise"``, ``no_deal="warn"``, ``indeterminate="warn"``,
-``no_convergence="warn"``, ``internal="raise"``.  A call with scalar arguments only
+``no_convergence="warn"``, ``internal="raise"``, ``implausible="warn"`` (the result
+uses the value as given; ``errstate(implausible="ignore")`` turns the check off, e.g.
+for arrays where such values are meant).  A call with scalar arguments only
 always raises :class:`InvalidArgumentError` (a ``ValueError``) for invalid input; the
 ``invalid`` setting applies to array calls.
 """
@@ -32,11 +36,14 @@ __all__ = [
     "IndeterminateError",
     "NoConvergenceError",
     "InternalError",
+    "ImplausibleInputError",
     "CounterofferWarning",
     "InvalidArgumentWarning",
     "NoDealWarning",
     "IndeterminateWarning",
     "NoConvergenceWarning",
+    "InternalWarning",
+    "ImplausibleInputWarning",
     "errstate",
     "seterr",
     "geterr",
@@ -67,6 +74,10 @@ class InternalError(CounterofferError, RuntimeError):
     """A defect in the library (``internal``); please report it."""
 
 
+class ImplausibleInputError(CounterofferError, ValueError):
+    """A valid value outside its plausible range (with ``errstate(implausible="raise")``)."""
+
+
 class CounterofferWarning(UserWarning):
     """Base class of the warnings the package issues for a status of the library."""
 
@@ -91,6 +102,11 @@ class InternalWarning(CounterofferWarning):
     """A defect in the library gave NaN (with ``errstate(internal="warn")``)."""
 
 
+class ImplausibleInputWarning(CounterofferWarning):
+    """A valid value outside its plausible range, e.g. a rate typed as 8 for 8%: the
+    result uses the value as given."""
+
+
 #: category name -> (error class, warning class); unknown future statuses use the bases
 CLASSES: Dict[str, Any] = {
     "invalid": (InvalidArgumentError, InvalidArgumentWarning),
@@ -98,6 +114,7 @@ CLASSES: Dict[str, Any] = {
     "indeterminate": (IndeterminateError, IndeterminateWarning),
     "no_convergence": (NoConvergenceError, NoConvergenceWarning),
     "internal": (InternalError, InternalWarning),
+    "implausible": (ImplausibleInputError, ImplausibleInputWarning),
 }
 
 _ACTIONS = ("raise", "warn", "ignore")
@@ -107,6 +124,7 @@ _DEFAULTS: Dict[str, str] = {
     "indeterminate": "warn",
     "no_convergence": "warn",
     "internal": "raise",
+    "implausible": "warn",
 }
 _policy: contextvars.ContextVar[Dict[str, str]] = contextvars.ContextVar(
     "counteroffer_errstate", default=_DEFAULTS
@@ -151,6 +169,7 @@ def seterr(
     indeterminate: str | None = None,
     no_convergence: str | None = None,
     internal: str | None = None,
+    implausible: str | None = None,
 ) -> Dict[str, str]:
     """Set the policy for the current context; returns the previous one."""
     old = geterr()
@@ -158,7 +177,8 @@ def seterr(
         _checked(
             old,
             {"all": all, "invalid": invalid, "no_deal": no_deal, "indeterminate": indeterminate,
-             "no_convergence": no_convergence, "internal": internal},
+             "no_convergence": no_convergence, "internal": internal,
+             "implausible": implausible},
         )
     )
     return old
@@ -173,6 +193,7 @@ def errstate(
     indeterminate: str | None = None,
     no_convergence: str | None = None,
     internal: str | None = None,
+    implausible: str | None = None,
 ) -> Iterator[Dict[str, str]]:
     """Context manager: the error policy inside the ``with`` block.
 
@@ -186,7 +207,7 @@ def errstate(
     new = _checked(
         _policy.get(),
         {"all": all, "invalid": invalid, "no_deal": no_deal, "indeterminate": indeterminate,
-         "no_convergence": no_convergence, "internal": internal},
+         "no_convergence": no_convergence, "internal": internal, "implausible": implausible},
     )
     token = _policy.set(new)
     try:

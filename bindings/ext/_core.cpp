@@ -230,6 +230,29 @@ py::tuple call(int id, const std::vector<double> &args) {
 
 void tally_reset() { g_tally = Tally{}; }
 
+// The plausible range of an argument (values outside it are valid but look like a
+// typo, e.g. a rate typed as 8 for 8%): the library's cto_arg_plausible_range when the
+// header declares it.  Until then the fallback below is chosen by overload resolution
+// (an exact match beats the ellipsis), so this file builds against either header.
+namespace fallback {
+constexpr int kNoPlausibleRangeInLibrary = -1000;
+inline int cto_arg_plausible_range(...) { return kNoPlausibleRangeInLibrary; }
+}  // namespace fallback
+
+bool library_has_plausible_ranges() {
+    using namespace fallback;
+    double lo = 0.0, hi = 0.0;
+    return cto_arg_plausible_range(0, 0, &lo, &hi) != fallback::kNoPlausibleRangeInLibrary;
+}
+
+// (low, high) for function `id`, argument `j`, or None when it has no plausible range.
+py::object arg_plausible_range(int id, int j) {
+    using namespace fallback;
+    double lo = 0.0, hi = 0.0;
+    if (cto_arg_plausible_range(id, j, &lo, &hi) != CTO_OK) return py::none();
+    return py::make_tuple(lo, hi);
+}
+
 py::tuple tally_take() {
     const Tally t = g_tally;
     g_tally = Tally{};
@@ -246,16 +269,29 @@ PYBIND11_MODULE(_core, m) {
 
     m.attr("HEADER_VERSION") = CTO_VERSION_STRING;
     m.attr("REPORT_SLOTS") = CTO_REPORT_SLOTS;
-    py::dict kinds;
-    kinds["real"] = CTO_ARG_REAL;
-    kinds["unit"] = CTO_ARG_UNIT;
-    kinds["nonneg"] = CTO_ARG_NONNEG;
-    kinds["positive"] = CTO_ARG_POSITIVE;
-    kinds["bool"] = CTO_ARG_BOOL;
-    kinds["count"] = CTO_ARG_COUNT;
-    kinds["choice"] = CTO_ARG_CHOICE;
-    kinds["optional"] = CTO_ARG_OPTIONAL;
-    m.attr("ARG_KINDS") = kinds;
+    // The header's constants under their C names without the CTO_ prefix.
+    m.attr("OK") = CTO_OK;
+    m.attr("E_INVALID") = CTO_E_INVALID;
+    m.attr("E_NO_DEAL") = CTO_E_NO_DEAL;
+    m.attr("E_INDETERMINATE") = CTO_E_INDETERMINATE;
+    m.attr("E_NO_CONVERGENCE") = CTO_E_NO_CONVERGENCE;
+    m.attr("E_INTERNAL") = CTO_E_INTERNAL;
+    m.attr("ARG_REAL") = CTO_ARG_REAL;
+    m.attr("ARG_UNIT") = CTO_ARG_UNIT;
+    m.attr("ARG_NONNEG") = CTO_ARG_NONNEG;
+    m.attr("ARG_POSITIVE") = CTO_ARG_POSITIVE;
+    m.attr("ARG_BOOL") = CTO_ARG_BOOL;
+    m.attr("ARG_COUNT") = CTO_ARG_COUNT;
+    m.attr("ARG_CHOICE") = CTO_ARG_CHOICE;
+    m.attr("ARG_OPTIONAL") = CTO_ARG_OPTIONAL;
+    m.attr("BINDS_NONE") = CTO_BINDS_NONE;
+    m.attr("BINDS_OWN") = CTO_BINDS_OWN;
+    m.attr("BINDS_OTHER") = CTO_BINDS_OTHER;
+    m.attr("BINDS_BOTH") = CTO_BINDS_BOTH;
+    m.attr("HAS_PLAUSIBLE_RANGES") = library_has_plausible_ranges();
+    m.def("arg_plausible_range", &arg_plausible_range, py::arg("id"), py::arg("arg_index"),
+          "(low, high) outside which a valid value looks like a typo, or None "
+          "(cto_arg_plausible_range; None for every argument while the library has none)");
 
     m.def("version", [] { return std::string(cto_version_string()); },
           "the library's runtime version string");

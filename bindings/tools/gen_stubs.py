@@ -5,7 +5,8 @@
 
 Run it with the built package importable (pip install . first).  A new catalogue row
 needs only a rerun; tests/python/test_stubs.py checks that the stub is current and
-runs mypy's stubtest against the built module.
+runs mypy's stubtest against the built module.  The error and warning classes and the
+error-policy keywords are read from the package (_errors), the functions from the table.
 """
 
 from __future__ import annotations
@@ -15,8 +16,9 @@ import pathlib
 import sys
 
 import counteroffer as co
-from counteroffer._api import KIND
+from counteroffer._errors import CLASSES, geterr
 from counteroffer._present import OUTPUT_BOOL, OUTPUT_CODES
+from counteroffer._spec import Kind
 
 STUB = pathlib.Path(__file__).resolve().parents[1] / "counteroffer" / "__init__.pyi"
 
@@ -36,38 +38,8 @@ __version__: str
 __ALL__
 catalogue: Tuple[Any, ...]
 
-class CounterofferError(Exception): ...
-class InvalidArgumentError(CounterofferError, ValueError): ...
-class NoDealError(CounterofferError): ...
-class IndeterminateError(CounterofferError): ...
-class NoConvergenceError(CounterofferError, ArithmeticError): ...
-class InternalError(CounterofferError, RuntimeError): ...
-class CounterofferWarning(UserWarning): ...
-class InvalidArgumentWarning(CounterofferWarning): ...
-class NoDealWarning(CounterofferWarning): ...
-class IndeterminateWarning(CounterofferWarning): ...
-class NoConvergenceWarning(CounterofferWarning): ...
-class InternalWarning(CounterofferWarning): ...
-
-def geterr() -> Dict[str, str]: ...
-def seterr(
-    *,
-    all: Optional[_Action] = None,
-    invalid: Optional[_Action] = None,
-    no_deal: Optional[_Action] = None,
-    indeterminate: Optional[_Action] = None,
-    no_convergence: Optional[_Action] = None,
-    internal: Optional[_Action] = None,
-) -> Dict[str, str]: ...
-def errstate(
-    *,
-    all: Optional[_Action] = None,
-    invalid: Optional[_Action] = None,
-    no_deal: Optional[_Action] = None,
-    indeterminate: Optional[_Action] = None,
-    no_convergence: Optional[_Action] = None,
-    internal: Optional[_Action] = None,
-) -> Any: ...
+__CLASSES__
+__POLICY__
 def status_name(status: int) -> str: ...
 def set_num_threads(n: int) -> int: ...
 def get_num_threads() -> int: ...
@@ -84,15 +56,15 @@ class ArrayResult(Mapping[str, Any]):
 
 
 def _scalar_type(spec, arg) -> str:  # type: ignore[no-untyped-def]
-    if arg.kind == KIND["bool"]:
+    if arg.kind == Kind.BOOL:
         return "bool"
-    if arg.kind == KIND["choice"]:
+    if arg.kind == Kind.CHOICE:
         return "Literal[" + ", ".join(repr(c) for c in arg.choices) + "]"
-    if arg.kind == KIND["count"]:
+    if arg.kind == Kind.COUNT:
         t = "int"
     else:
         t = "_Real"
-    if arg.kind == KIND["optional"] or (arg.name in spec.overrides
+    if arg.kind == Kind.OPTIONAL or (arg.name in spec.overrides
                                         and spec.overrides[arg.name][0] is None):
         t = f"Optional[{t}]"
     return t
@@ -103,7 +75,7 @@ def _params(spec, scalar: bool) -> str:  # type: ignore[no-untyped-def]
     for a in spec.args:
         t = _scalar_type(spec, a)
         if not scalar:
-            if a.kind == KIND["choice"]:
+            if a.kind == Kind.CHOICE:
                 t = f"Union[{t}, _Array]"
             elif t.startswith("Optional["):
                 t = "Optional[_Array]"
@@ -115,9 +87,28 @@ def _params(spec, scalar: bool) -> str:  # type: ignore[no-untyped-def]
     return "\n".join(parts) + f"\n    *,\n    {out},"
 
 
+def _classes() -> str:
+    """The error and warning classes of the policy, with their bases."""
+    lines = ["class CounterofferError(Exception): ...", "class CounterofferWarning(UserWarning): ..."]
+    for error, warning in CLASSES.values():
+        for cls in (error, warning):
+            bases = ", ".join(b.__name__ for b in cls.__bases__)
+            lines.append(f"class {cls.__name__}({bases}): ...")
+    return "\n".join(lines)
+
+
+def _policy() -> str:
+    """seterr and errstate take one keyword per category of the policy."""
+    params = "".join(f"    {k}: Optional[_Action] = None,\n" for k in ["all", *geterr()])
+    return (f"def geterr() -> Dict[str, str]: ...\n"
+            f"def seterr(\n    *,\n{params}) -> Dict[str, str]: ...\n"
+            f"def errstate(\n    *,\n{params}) -> Any: ...")
+
+
 def render() -> str:
     names = ",\n".join(f"    {n!r}" for n in co.__all__)
-    chunks = [HEAD.replace("__ALL__", f"__all__ = [\n{names},\n]")]
+    head = HEAD.replace("__ALL__", f"__all__ = [\n{names},\n]")
+    chunks = [head.replace("__CLASSES__", _classes()).replace("__POLICY__", _policy())]
     for spec in co.catalogue:
         fn = getattr(co, spec.name)
         result = getattr(fn, "Result", None)
@@ -125,7 +116,8 @@ def render() -> str:
             chunks.append("@dataclass(frozen=True)")
             chunks.append(f"class {result.__name__}:")
             for name, _h in spec.outputs:
-                t = "Optional[str]" if name in OUTPUT_CODES else (
+                words = ", ".join(repr(w) for _c, w in sorted(OUTPUT_CODES.get(name, {}).items()))
+                t = f"Optional[Literal[{words}]]" if name in OUTPUT_CODES else (
                     "bool" if name in OUTPUT_BOOL else "float")
                 chunks.append(f"    {name}: {t}")
             chunks.append("")

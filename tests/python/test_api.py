@@ -16,6 +16,7 @@ import pandas as pd
 import pytest
 
 import counteroffer as co
+from counteroffer import _core
 
 
 def rubinstein(d1, d2, s=1.0, opens=True):
@@ -24,56 +25,58 @@ def rubinstein(d1, d2, s=1.0, opens=True):
     return x if opens else s * d1 * (1 - d2) / (1 - d1 * d2)
 
 
-# The catalogue's signatures, copied from CATALOGUE.md ("The catalogue" table) of the
-# project's shared contract; the Python defaults must match it exactly.
-CATALOGUE = {
-    "round_factor": "rate, days, basis=365, continuous=False",
-    "share": "own_factor, other_factor, surplus=1, own_opens=True",
-    "share_from_rates": "own_rate, other_rate, days, surplus=1, own_opens=True, basis=365, "
-    "continuous=False",
-    "limit_share": "own_rate, other_rate, surplus=1",
-    "breakdown_share": "own_factor, other_factor, breakdown_prob, own_fallback, "
-    "other_fallback, surplus=1, own_opens=True",
-    "outside_option_share": "own_factor, other_factor, own_outside, other_outside, "
-    "surplus=1, own_opens=True",
-    "inside_option_share": "own_factor, other_factor, own_inside, other_inside, surplus=1, "
-    "own_opens=True",
-    "solve": "own_factor, other_factor, breakdown_prob=0, own_fallback=0, other_fallback=0, "
-    "own_inside=0, other_inside=0, own_outside=None, other_outside=None, surplus=1, "
-    "own_opens=True",
-    "deadline_share": "own_factor, other_factor, rounds, own_fallback=0, other_fallback=0, "
-    "surplus=1, own_opens=True",
-    "fixed_cost_share": "own_cost, other_cost, surplus=1, own_opens=True",
-    "delay_cost": "factor, stake, breakdown_prob=0, fallback=0",
-    "first_mover_advantage": "own_factor, other_factor, surplus=1",
-    "nash_share": "own_fallback, other_fallback, own_weight=0.5, surplus=1, own_curvature=1, "
-    "other_curvature=1",
-    "risk_averse_share": "own_factor, other_factor, own_curvature, other_curvature, "
-    "utility='power', breakdown_prob=0, own_fallback=0, other_fallback=0, surplus=1, "
-    "own_opens=True",
-    "group_share": "factor, parties, position=0, surplus=1",
-    "majority_share": "factor, parties, votes_needed=None, role='proposer', surplus=1",
-    "implied_factor": "observed_share, other_factor, own_opens=True",
-    "implied_rate": "observed_share, other_rate, days, own_opens=True, basis=365, "
-    "continuous=False",
-    "share_sensitivity": "own_rate, other_rate, days, wrt='own', surplus=1, own_opens=True, "
-    "basis=365, continuous=False",
-    "screening_profit": "high_value, low_value, high_prob, seller_factor, buyer_factor",
-}
+def expected_signature(row):
+    """The Python signature text of one row of the C table (_core.catalogue()), from the
+    header's documented encodings of a default as a double: bool 0/1, a choice's index,
+    -infinity for an absent optional value; written here, apart from the package's own
+    conversion (counteroffer/_spec.py)."""
+    parts = []
+    for a in row["args"]:
+        if not a["has_default"]:
+            parts.append(a["name"])
+            continue
+        d = a["default"]
+        if a["kind"] == _core.ARG_BOOL:
+            value = bool(d)
+        elif a["kind"] == _core.ARG_CHOICE:
+            value = a["choices"][int(d)]
+        elif a["kind"] == _core.ARG_OPTIONAL and d == -math.inf:
+            value = None
+        elif row["name"] == "majority_share" and a["name"] == "votes_needed":
+            value = None  # the contract: None = simple majority (the table's 0)
+        elif float(d).is_integer():
+            value = int(d)
+        else:
+            value = d
+        parts.append(f"{a['name']}={value!r}")
+    return ", ".join(parts)
 
 
-def test_every_catalogue_function_exists_with_its_signature():
-    # Source: CATALOGUE.md, the interface contract (names, order, defaults).
-    assert sorted(s.name for s in co.catalogue) == sorted(CATALOGUE)
-    for name, text in CATALOGUE.items():
-        sig = inspect.signature(getattr(co, name))
-        params = [p for p in sig.parameters.values() if p.name != "out"]
-        shown = ", ".join(
-            p.name if p.default is inspect.Parameter.empty else f"{p.name}={p.default!r}"
-            for p in params
-        )
-        assert shown == text, name
-        assert sig.parameters["out"].kind is inspect.Parameter.KEYWORD_ONLY
+def shown_signature(fn):
+    params = [p for p in inspect.signature(fn).parameters.values() if p.name != "out"]
+    return ", ".join(p.name if p.default is inspect.Parameter.empty else f"{p.name}={p.default!r}"
+                     for p in params)
+
+
+def test_every_table_row_is_a_function_with_the_tables_signature():
+    # Source: the library's function table (the one definition of each function).
+    rows = _core.catalogue()
+    assert [s.name for s in co.catalogue] == [r["name"] for r in rows]
+    for row in rows:
+        fn = getattr(co, row["name"])
+        assert shown_signature(fn) == expected_signature(row), row["name"]
+        assert inspect.signature(fn).parameters["out"].kind is inspect.Parameter.KEYWORD_ONLY
+
+
+def test_signatures_match_the_published_contract_on_samples():
+    # Spot checks against the function contract (docs/reference/functions.md, from the
+    # design contract): the combined model and the two Python-only defaults.
+    assert shown_signature(co.solve) == (
+        "own_factor, other_factor, breakdown_prob=0, own_fallback=0, other_fallback=0, "
+        "own_inside=0, other_inside=0, own_outside=None, other_outside=None, surplus=1, "
+        "own_opens=True")
+    assert shown_signature(co.majority_share) == (
+        "factor, parties, votes_needed=None, role='proposer', surplus=1")
 
 
 def test_every_function_is_a_ufunc_underneath():
@@ -229,14 +232,16 @@ def test_solve_scalar_result_object_and_array_mapping():
     assert isinstance(r, co.SolveResult)
     assert r.own_share == pytest.approx(0.5, abs=1e-15)
     assert r.other_share == pytest.approx(0.5, abs=1e-15)
-    assert r.binding == "other" and r.rational is True
+    assert r.binding == "theirs" and r.rational is True
     with pytest.raises(Exception):
         r.own_share = 1.0  # frozen
     arr = co.solve([0.9, 0.9], 0.9, other_outside=[0.5, 0.3])
     assert isinstance(arr, co.ArrayResult)
     assert set(arr) == {"own_share", "other_share", "binding", "rational"}
     np.testing.assert_allclose(arr["own_share"], [0.5, 1 / 1.9], rtol=1e-15)  # rows 42, 40
-    np.testing.assert_array_equal(arr.binding, [2.0, 0.0])
+    # the same words as the scalar result (issue 14 point 3)
+    assert arr.binding.tolist() == ["theirs", "none"]
+    assert arr.rational.dtype == bool and arr.rational.tolist() == [True, True]
     rec = arr.to_records()
     assert rec.own_share.shape == (2,)
     with pytest.warns(co.NoDealWarning):

@@ -47,10 +47,12 @@ def bi_finite(dA, dB, S, T, bA=0.0, bB=0.0):
 @pytest.mark.parametrize("days", [0.0, 1e-5, 1.0, 30.0, 365.0, 3650.0])
 def test_round_factor_mpmath(rate, days):
     # Standard compounding (common practice, no source), at 50 digits with mpmath.
+    # A rate of 300% a year is outside the plausible range on purpose: it stays valid.
     r, t = mpmath.mpf(rate), mpmath.mpf(days) / 365
-    close(co.round_factor(rate, days), (1 + r) ** (-t))
-    close(co.round_factor(rate, days, continuous=True), mpmath.exp(-r * t))
-    close(co.round_factor(rate, days, basis=360), (1 + r) ** (-mpmath.mpf(days) / 360))
+    with co.errstate(implausible="ignore"):
+        close(co.round_factor(rate, days), (1 + r) ** (-t))
+        close(co.round_factor(rate, days, continuous=True), mpmath.exp(-r * t))
+        close(co.round_factor(rate, days, basis=360), (1 + r) ** (-mpmath.mpf(days) / 360))
 
 
 # ---- Rubinstein (1982) ------------------------------------------------------------
@@ -137,7 +139,8 @@ def test_breakdown_share_published_values():
     # REFERENCE s.11 rows 33-36 (Muthoo 1999 ch.4; BRW 1986)
     close(co.breakdown_share(1, 1, 0.1, 0.2, 0.1), 0.568421052631579, rtol=1e-14)
     close(1 - co.breakdown_share(1, 1, 0.1, 0.2, 0.1), 0.431578947368421, rtol=1e-14)
-    close(co.breakdown_share(1, 1, 1.0, 0.2, 0.1), 0.9, rtol=1e-15)
+    with pytest.warns(co.ImplausibleInputWarning, match="breakdown_prob = 1.0"):
+        close(co.breakdown_share(1, 1, 1.0, 0.2, 0.1), 0.9, rtol=1e-15)  # valid, unusual
     close(co.breakdown_share(0.95, 0.9, 0.05, 0.2, 0.1), 0.650500848431770, rtol=1e-14)
 
 

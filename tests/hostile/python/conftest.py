@@ -10,10 +10,12 @@ import numpy as np
 import pytest
 
 import counteroffer as co
+from counteroffer._spec import Kind
 
-SPECS = co.load_specs()
-KIND = {"real": 0, "unit": 1, "nonneg": 2, "positive": 3, "bool": 4, "count": 5,
-        "choice": 6, "optional": 7}
+SPECS = list(co.catalogue)
+#: argument kinds by name, from the header's constants (CTO_ARG_*, exported by _core)
+KIND = {name.lower(): getattr(Kind, name) for name in
+        ("REAL", "UNIT", "NONNEG", "POSITIVE", "BOOL", "COUNT", "CHOICE", "OPTIONAL")}
 
 
 def valid_arrays(spec, n, rng):

@@ -117,7 +117,20 @@ def numeric(arg, v):
         if big.any() and any(int(float(w)) != int(w) for w in a[big].ravel().tolist()):
             raise MustRaise
         return a.astype(np.float64)
-    raise MustRaise  # object, bytes, text, complex, datetime
+    if a.dtype.kind == "O":  # element by element: numbers, or None for an absent value
+        return np.array([object_element(arg, e) for e in a.ravel().tolist()],
+                        dtype=np.float64).reshape(a.shape)
+    raise MustRaise  # bytes, text, complex, datetime
+
+
+def object_element(arg, e):
+    """One element of an object array (bindings/README.md: a text or None inside an
+    array is refused naming the argument, except None where it means "absent")."""
+    if e is None and (arg.kind == KIND["optional"] or arg.name == "votes_needed"):
+        return 0.0 if arg.name == "votes_needed" else -math.inf
+    if isinstance(e, (bool, int, float)):
+        return float(e)
+    raise MustRaise
 
 
 def invalid_mask(arg, x):
@@ -150,7 +163,10 @@ def outputs(res):
     if isinstance(res, np.ndarray):
         return [res]
     if hasattr(res, "keys"):
-        return [np.asarray(res[k], dtype=np.float64) for k in res.keys()]
+        # the numbers: which option binds is a word (None where undefined) and whether
+        # a deal is rational a bool (False where undefined), as in scalar results
+        return [np.asarray(res[k], dtype=np.float64) for k in res.keys()
+                if np.asarray(res[k]).dtype.kind == "f"]
     # a frozen result of a scalar call (solve): its numbers
     vals = [getattr(res, f) for f in res.__dataclass_fields__]
     return [np.float64(v) for v in vals if isinstance(v, (float, bool))]

@@ -22,10 +22,12 @@ N = 20_000  # below the package's own split threshold (2 x 32768): one thread pe
 
 
 def bits(x):
-    """Every output as raw 64-bit patterns (NaN payloads included)."""
+    """Every output as raw 64-bit patterns (NaN payloads included); words (which
+    walk-away value binds) and bools as they are."""
     if isinstance(x, np.ndarray):
         return [np.ascontiguousarray(x, dtype=np.float64).view(np.uint64)]
-    return [np.ascontiguousarray(x[k], dtype=np.float64).view(np.uint64) for k in x]
+    return [np.ascontiguousarray(x[k], dtype=np.float64).view(np.uint64)
+            if np.asarray(x[k]).dtype.kind == "f" else np.asarray(x[k]) for k in x]
 
 
 def run_quiet(fn, args):

@@ -1,0 +1,258 @@
+"""Evaluation with the error policy: one call of a catalogue function.
+
+Scalars go through ``_core.call``, arrays through the row's ufunc (``_core.ufuncs``);
+the statuses the library reports are gathered per call and the policy of ``_errors``
+is applied once, after the loop.  Validation and mathematics are the library's.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+import warnings
+from typing import Any, List, Optional, Sequence, Tuple
+
+import numpy as np
+
+from . import _core, _errors, _present
+from ._convert import EXACT_INT, PLAIN, Invalid, convert, fmt, is_dask, is_dask_series
+from ._reasons import reason
+from ._results import ArrayResult
+from ._spec import STATUS_NAMES, FunctionSpec, Status
+
+PACKAGE_DIR = os.path.dirname(os.path.abspath(__file__))
+
+
+def _warn(message: str, category: type) -> None:
+    """Warn at the first caller outside the package (once-per-location filters then
+    work on the user's code)."""
+    frame = sys._getframe(1)
+    level = 2
+    while frame is not None and frame.f_code.co_filename.startswith(PACKAGE_DIR):
+        frame = frame.f_back  # type: ignore[assignment]
+        level += 1
+    warnings.warn(message, category, stacklevel=level)
+
+
+def act(category: str, message: str, action: Optional[str] = None) -> None:
+    """Apply the policy of `category` ("invalid", "no_deal", ...) to one message."""
+    if action is None:
+        action = _errors.geterr().get(category, "raise")
+    error, warning = _errors.CLASSES.get(
+        category, (_errors.CounterofferError, _errors.CounterofferWarning))
+    if action == "raise":
+        raise error(message)
+    if action == "warn":
+        _warn(message, warning)
+
+
+# ---- messages -------------------------------------------------------------------------
+def invalid_message(spec: FunctionSpec, j: int, value: Any, why: Optional[str] = None,
+                    position: Optional[Tuple[int, ...]] = None) -> str:
+    """"<function>: <argument> = <value> is invalid (<why>)"."""
+    if not 0 <= j < len(spec.args):
+        return f"{spec.name}: invalid arguments ({_core.status_message(Status.INVALID)})"
+    arg = spec.args[j]
+    text = f"{why}; {arg.help}" if why else reason(spec, j, value)
+    where = f" at index {position}" if position else ""
+    return f"{spec.name}: {arg.name} = {fmt(value)}{where} is invalid ({text})"
+
+
+def status_text(spec: FunctionSpec, code: int) -> str:
+    """The library's meaning of a status, with what the function's row says about it
+    (e.g. share_from_rates: indeterminate also when days = 0)."""
+    name = STATUS_NAMES.get(code, "")
+    own = [part.strip() for part in spec.statuses.split(";") if name and name in part
+           and part.strip() != name]
+    text = _core.status_message(code)
+    return f"{text} ({spec.name}: {'; '.join(own)})" if own else text
+
+
+def _position(flat: int, shape: Tuple[int, ...],
+              origin: Optional[Tuple[int, ...]]) -> Tuple[int, ...]:
+    where = tuple(int(i) for i in np.unravel_index(flat, shape))
+    if origin is not None and len(origin) == len(where):
+        where = tuple(i + o for i, o in zip(where, origin))
+    return where
+
+
+def _label(index: Any, where: Tuple[int, ...]) -> str:
+    if index is None or len(where) != 1:
+        return ""
+    return f", label {index[where[0]]!r}"
+
+
+# ---- plausible ranges -----------------------------------------------------------------
+def _implausible_message(spec: FunctionSpec, j: int, value: Any, extra: str = "") -> str:
+    arg = spec.args[j]
+    low, high = arg.plausible  # type: ignore[misc]
+    return (f"{spec.name}: {arg.name} = {fmt(value)} is outside its plausible range "
+            f"{low:g} to {high:g}{extra}: it looks like a typo or a percentage typed as a "
+            f"whole number (8 for 8%); the result uses the value as given")
+
+
+def check_plausible(spec: FunctionSpec, vals: Sequence[Any],
+                    origin: Optional[Tuple[int, ...]] = None, index: Any = None) -> None:
+    """Apply the ``implausible`` policy to values outside their plausible ranges."""
+    action = _errors.geterr().get("implausible", "warn")
+    if action == "ignore":
+        return
+    for j, arg in enumerate(spec.args):
+        if arg.plausible is None:
+            continue
+        low, high = arg.plausible
+        v = vals[j]
+        if np.ndim(v) == 0:
+            x = float(v)
+            if np.isfinite(x) and not low <= x <= high:
+                act("implausible", _implausible_message(spec, j, x), action)
+            continue
+        arr = np.asarray(v)
+        if arr.size == 0 or arr.dtype.kind not in "biuf":
+            continue
+        # reductions first: no temporary array unless something is out of range
+        if not (np.fmin.reduce(arr, axis=None) < low or np.fmax.reduce(arr, axis=None) > high):
+            continue
+        outside = np.isfinite(arr) & ((arr < low) | (arr > high))
+        n = int(np.count_nonzero(outside))
+        if n:
+            flat = int(np.argmax(outside.ravel()))
+            where = _position(flat, arr.shape, origin)
+            extra = (f" in {n} of {arr.size} values (first at index {where}"
+                     f"{_label(index, where)})")
+            act("implausible", _implausible_message(spec, j, arr.ravel()[flat], extra), action)
+
+
+# ---- scalars ----------------------------------------------------------------------
+def evaluate_scalar(spec: FunctionSpec, vals: List[Any], originals: Sequence[Any]) -> Any:
+    """One evaluation: the outputs as the library gives them, after the policy."""
+    args = []
+    for j, v in enumerate(vals):
+        try:
+            args.append(float(v))
+        except (TypeError, ValueError):
+            raise _errors.InvalidArgumentError(
+                invalid_message(spec, j, originals[j], "a number is required")) from None
+    status, bad, outs = _core.call(spec.id, args)
+    if status == Status.INVALID:
+        value = originals[bad] if 0 <= bad < len(originals) else None
+        raise _errors.InvalidArgumentError(invalid_message(spec, bad, value))
+    if status != Status.OK:
+        act(STATUS_NAMES.get(status, "internal"), f"{spec.name}: {status_text(spec, status)}")
+    check_plausible(spec, args)
+    return outs
+
+
+# ---- arrays -----------------------------------------------------------------------
+def _shape_error(spec: FunctionSpec, vals: Sequence[Any], out: Any, error: ValueError) -> str:
+    shapes = ", ".join(f"{a.name} {np.shape(v)}" for a, v in zip(spec.args, vals)
+                       if np.ndim(v) != 0)
+    if out is not None:
+        outs = out if isinstance(out, tuple) else (out,)
+        shapes += ", out " + ", ".join(str(np.shape(o)) for o in outs)
+    return (f"{spec.name}: the arguments cannot be broadcast to one shape ({shapes}); "
+            f"NumPy: {error}")
+
+
+def _run(spec: FunctionSpec, vals: Sequence[Any], out: Any) -> Tuple[Any, Any]:
+    ufunc = _core.ufuncs[spec.name]
+    _core.tally_reset()
+    try:
+        res = ufunc(*vals) if out is None else ufunc(*vals, out=out)
+    except ValueError as e:
+        if "broadcast" not in str(e):
+            raise
+        raise ValueError(_shape_error(spec, vals, out, e)) from None
+    finally:
+        tally = _core.tally_take()
+    return res, tally
+
+
+def _first_index(spec: FunctionSpec, vals: Sequence[Any], code: int,
+                 origin: Optional[Tuple[int, ...]]) -> Tuple[int, ...]:
+    """Where the first element with status `code` is (error path only)."""
+    st = _core.status_ufuncs[spec.name](*vals)[-1]
+    return _position(int(np.argmax(np.ravel(st) == code)), np.shape(st), origin)
+
+
+def _apply_policy(spec: FunctionSpec, vals: Sequence[Any], tally: Any,
+                  origin: Optional[Tuple[int, ...]], index: Any) -> None:
+    counts, bad, bad_value = tally
+    total = sum(counts)
+    policy = _errors.geterr()
+    for code in range(1, len(counts)):
+        category = STATUS_NAMES.get(code, "internal")
+        action = policy.get(category, "raise")
+        if not counts[code] or action == "ignore":
+            continue
+        if code == Status.INVALID:
+            where = _first_index(spec, vals, code, origin)
+            msg = (invalid_message(spec, bad, bad_value) + f" in {counts[code]} of {total} "
+                   f"elements (first at index {where}{_label(index, where)})")
+            if action == "warn":
+                msg += "; those results are NaN"
+        else:
+            msg = f"{spec.name}: {counts[code]} of {total} elements: {status_text(spec, code)}"
+        act(category, msg, action)
+
+
+def evaluate_array(spec: FunctionSpec, vals: Sequence[Any], out: Any = None,
+                   origin: Optional[Tuple[int, ...]] = None, index: Any = None) -> Any:
+    """The ufunc's raw result (float64 array, or a tuple of them), after the policy.
+    `origin` is where these elements start in a larger array (a dask chunk)."""
+    res, tally = _run(spec, vals, out)
+    _apply_policy(spec, vals, tally, origin, index)
+    check_plausible(spec, vals, origin, index)
+    return res
+
+
+def package(spec: FunctionSpec, res: Any, index: Any, out: Any) -> Any:
+    """The raw result as the caller gets it: an array, a Series, an ArrayResult or a
+    DataFrame, with coded outputs as words (kept as written when out= is given)."""
+    if len(spec.outputs) == 1:
+        if index is not None:
+            import pandas as pd  # type: ignore[import-untyped,unused-ignore]
+
+            return pd.Series(res, index=index, name=spec.name)
+        return res
+    data = {name: r if out is not None else _present.array(name, r)
+            for name, r in zip(spec.output_names, res)}
+    if index is not None:
+        import pandas as pd  # type: ignore[import-untyped,unused-ignore]
+
+        return pd.DataFrame(data, index=index)
+    return ArrayResult(data)
+
+
+# ---- one call -----------------------------------------------------------------------
+def evaluate(spec: FunctionSpec, fn: Any, values: Tuple[Any, ...], out: Any,
+             result_cls: Optional[type]) -> Any:
+    """A call of the Python function `fn` of `spec` with these argument values."""
+    # fast path: plain Python numbers only (no choice strings, no None, no arrays)
+    if out is None and all(type(v) in PLAIN for v in values) and all(
+            type(v) is not int or -EXACT_INT <= v <= EXACT_INT for v in values):
+        return _scalar_result(spec, evaluate_scalar(spec, list(values), values), result_cls)
+    if any(is_dask_series(v) for v in values):
+        from ._dask import evaluate_frame
+
+        return evaluate_frame(spec, fn, values)
+    try:
+        vals, index, scalar = convert(spec, values)
+    except Invalid as e:
+        raise _errors.InvalidArgumentError(
+            invalid_message(spec, e.index, e.value, e.reason, e.position)) from None
+    if any(is_dask(v) for v in vals):
+        if out is not None:
+            raise TypeError(f"{spec.name}: out= is not supported with dask arrays")
+        from ._dask import evaluate_lazy
+
+        return evaluate_lazy(spec, vals)
+    if scalar and out is None:
+        return _scalar_result(spec, evaluate_scalar(spec, vals, values), result_cls)
+    return package(spec, evaluate_array(spec, vals, out, index=index), index, out)
+
+
+def _scalar_result(spec: FunctionSpec, outs: Sequence[float], result_cls: Optional[type]) -> Any:
+    if result_cls is None:
+        return float(outs[0])
+    return result_cls(*(_present.scalar(n, v) for n, v in zip(spec.output_names, outs)))

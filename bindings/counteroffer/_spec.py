@@ -1,0 +1,134 @@
+"""The library's function table as Python objects: FunctionSpec and ArgSpec.
+
+One FunctionSpec per row of ``_core.catalogue()`` (the C table, ``cto_function_at``), in
+table order.  Argument kinds and statuses are the header's constants, exported by
+``_core`` under their C names (``CTO_ARG_UNIT`` is ``_core.ARG_UNIT``); nothing here
+numbers them again.
+"""
+
+from __future__ import annotations
+
+import dataclasses
+import math
+from typing import Any, Dict, List, Optional, Tuple
+
+from . import _core
+from ._plausible import plausible_range
+from ._present import DEFAULT_OVERRIDES
+
+
+class Kind:
+    """Argument kinds (CTO_ARG_* of the public header)."""
+
+    REAL = _core.ARG_REAL
+    UNIT = _core.ARG_UNIT
+    NONNEG = _core.ARG_NONNEG
+    POSITIVE = _core.ARG_POSITIVE
+    BOOL = _core.ARG_BOOL
+    COUNT = _core.ARG_COUNT
+    CHOICE = _core.ARG_CHOICE
+    OPTIONAL = _core.ARG_OPTIONAL
+
+
+class Status:
+    """Status codes (CTO_OK, CTO_E_* of the public header)."""
+
+    OK = _core.OK
+    INVALID = _core.E_INVALID
+    NO_DEAL = _core.E_NO_DEAL
+    INDETERMINATE = _core.E_INDETERMINATE
+    NO_CONVERGENCE = _core.E_NO_CONVERGENCE
+    INTERNAL = _core.E_INTERNAL
+
+
+#: status code -> the library's short name ("ok", "invalid", "no_deal", ...)
+STATUS_NAMES: Dict[int, str] = {code: _core.status_name(code) for code in range(_core.REPORT_SLOTS)}
+
+
+@dataclasses.dataclass(frozen=True)
+class ArgSpec:
+    name: str
+    label: str
+    help: str
+    kind: int
+    has_default: bool
+    default: float
+    min_count: int
+    choices: Tuple[str, ...]
+    #: (low, high): values outside are valid but look like a typo; None: no such range
+    plausible: Optional[Tuple[float, float]] = None
+
+    @property
+    def py_default(self) -> Any:
+        """The Python default shown in the signature (from the table's double)."""
+        if not self.has_default:
+            raise AttributeError(self.name)
+        if self.kind == Kind.BOOL:
+            return bool(self.default)
+        if self.kind == Kind.CHOICE:
+            return self.choices[int(self.default)]
+        if self.kind == Kind.OPTIONAL and self.default == -math.inf:
+            return None
+        if self.kind == Kind.COUNT or float(self.default).is_integer():
+            return int(self.default)
+        return float(self.default)
+
+
+@dataclasses.dataclass(frozen=True)
+class FunctionSpec:
+    id: int
+    name: str
+    calc_name: str
+    summary: str
+    formula: str
+    source: str
+    statuses: str
+    args: Tuple[ArgSpec, ...]
+    outputs: Tuple[Tuple[str, str], ...]
+    # Python defaults that the table's double cannot express (see _present.py)
+    overrides: Dict[str, Any]
+
+    def default(self, arg: ArgSpec) -> Any:
+        """The argument's Python default (as in the signature)."""
+        if arg.name in self.overrides:
+            return self.overrides[arg.name][0]
+        return arg.py_default
+
+    def default_double(self, arg: ArgSpec) -> float:
+        """The double the library takes for the argument's default."""
+        if arg.name in self.overrides:
+            return float(self.overrides[arg.name][1])
+        return float(arg.default)
+
+    def none_double(self, arg: ArgSpec) -> Optional[float]:
+        """The double that None stands for in this argument, or None if it has none."""
+        if arg.name in self.overrides and self.overrides[arg.name][0] is None:
+            return float(self.overrides[arg.name][1])
+        if arg.kind == Kind.OPTIONAL:
+            return -math.inf
+        return None
+
+    @property
+    def output_names(self) -> List[str]:
+        return [name for name, _help in self.outputs]
+
+
+def _arg(fid: int, j: int, a: Dict[str, Any]) -> ArgSpec:
+    return ArgSpec(a["name"], a["label"], a["help"], a["kind"], a["has_default"], a["default"],
+                   a["min_count"], tuple(a["choices"]), plausible_range(fid, j, a["name"]))
+
+
+def load_specs() -> List[FunctionSpec]:
+    """The library's table, one FunctionSpec per row, in order."""
+    specs = []
+    for row in _core.catalogue():
+        args = tuple(_arg(row["id"], j, a) for j, a in enumerate(row["args"]))
+        specs.append(
+            FunctionSpec(
+                row["id"], row["name"], row["calc_name"], row["summary"], row["formula"],
+                row["source"], row["statuses"], args,
+                tuple((o["name"], o["help"]) for o in row["outputs"]),
+                dict(DEFAULT_OVERRIDES.get(row["name"], {})),
+            )
+        )
+    return specs
