@@ -131,3 +131,78 @@ def test_many_bad_rows_are_summarised_but_all_kept():
     assert code == 1
     assert len(list(csv.DictReader(io.StringIO(out)))) == 80
     assert err.count("is invalid") == 5 and "more bad rows" in err and "80 invalid" in err
+
+
+def test_map_reads_arguments_from_other_columns():
+    text = "deal,wacc_ours,wacc_theirs,cycle\nArden supply,0.10,0.15,14\n"
+    code, out, err = run(["-f", "share_from_rates", "--map", "own_rate=wacc_ours",
+                          "--map", "other_rate=wacc_theirs,days=cycle"], text)
+    assert code == 0, err
+    row = next(csv.DictReader(io.StringIO(out)))
+    # Rubinstein (1982) with rates: S expm1(-r2 t)/expm1(-(r1 + r2) t), r = log(1 + rate)
+    import math
+    r1, r2, t = math.log1p(0.10), math.log1p(0.15), 14 / 365
+    assert float(row["value"]) == pytest.approx(math.expm1(-r2 * t) / math.expm1(-(r1 + r2) * t),
+                                                rel=1e-14)
+    code, out, err = run(["-f", "share", "--map", "own_factor"], "own_factor,other_factor\n")
+    assert code == 2 and "--map 'own_factor' is invalid (expected ARG=COLUMN" in err
+    code, out, err = run(["-f", "share", "--map", "speed=x"], "x,other_factor\n")
+    assert code == 2 and "share has no argument 'speed'" in err
+    code, out, err = run(["-f", "share", "--map", "own_factor=mine"], "other_factor\n0.5\n")
+    assert code == 2 and "needs the column(s) mine" in err
+
+
+def test_version_is_the_librarys(capsys):
+    from counteroffer import _core
+
+    assert _cli.run(["--version"]) == 0
+    assert capsys.readouterr().out.strip() == f"counteroffer {_core.version()}"
+
+
+def test_decimal_commas_in_and_out():
+    text = "own_factor;other_factor;surplus\n0,5;0,5;3\n0,9;0,8;1,5\n"
+    code, out, err = run(["-f", "share", "-d", ";", "--decimal", ","], text)
+    assert code == 0, err
+    rows = list(csv.reader(io.StringIO(out), delimiter=";"))
+    assert float(rows[1][4].replace(",", ".")) == pytest.approx(rubinstein(0.5, 0.5, 3.0),
+                                                                rel=1e-15)
+    assert "," in rows[2][4] and "." not in rows[2][4]
+    assert float(rows[2][4].replace(",", ".")) == pytest.approx(rubinstein(0.9, 0.8, 1.5),
+                                                                rel=1e-15)
+    code, out, err = run(["-f", "share", "--decimal", ","], text)
+    assert code == 2 and "--decimal , needs another delimiter" in err
+
+
+def test_binding_and_rational_are_words_as_in_python():
+    text = "own_factor,other_factor,other_outside,own_outside\n0.9,0.9,0.5,\n0.9,0.9,0.3,\n" \
+           "0.9,0.9,0.5,0.6\n"
+    code, out, err = run(["-f", "solve"], text)
+    assert code == 0, err
+    rows = list(csv.DictReader(io.StringIO(out)))
+    # outside option principle (Binmore, Shaked & Sutton 1989): 0.5 > 0.9/1.9 binds
+    import counteroffer as co
+
+    assert [r["binding"] for r in rows[:2]] == ["theirs", "none"]
+    assert rows[0]["binding"] == co.solve(0.9, 0.9, other_outside=0.5).binding
+    assert [r["rational"] for r in rows] == ["true", "true", "false"]  # 0.6 + 0.5 > 1
+    assert rows[2]["status"] == "no_deal"
+
+
+def test_implausible_rows_are_flagged_in_the_summary():
+    text = "own_rate,other_rate,days\n0.08,0.1,30\n8,0.1,30\n0.08,0.1,5000\n"
+    code, out, err = run(["-f", "share_from_rates"], text)
+    assert code == 0, err  # valid values: evaluated as given
+    assert [r["status"] for r in csv.DictReader(io.StringIO(out))] == ["ok"] * 3
+    assert "2 rows with implausible values" in err
+    assert "row 2: own_rate = 8.0 outside 0 to 1" in err
+    assert "row 3: days = 5000.0 outside 0 to 3650" in err
+
+
+def test_new_table_functions_need_no_command_line_code(capsys):
+    # every row of the library's table is a --function choice with its columns listed
+    import counteroffer as co
+
+    assert _cli.run(["--help"]) == 0
+    out = capsys.readouterr().out
+    for spec in co.catalogue:
+        assert f"  {spec.name} " in out and spec.args[0].name in out
