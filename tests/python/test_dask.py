@@ -74,3 +74,59 @@ def test_solve_over_2d_dask_with_broadcasting():
     for k, got in zip(want, graph_outputs):
         assert got.shape == (6, 4)
         np.testing.assert_array_equal(got, want[k])
+
+
+def test_error_position_counts_from_the_start_of_the_whole_array():
+    x = np.full((6, 5), 0.5)
+    x[4, 3] = 1.5  # in chunk (2, 1) of 2 x 3 chunks
+    lazy = co.share(da.from_array(x, chunks=(2, 3)), 0.9)
+    with pytest.raises(ValueError, match=r"own_factor = 1\.5 is invalid .*first at index "
+                                         r"\(4, 3\)"):
+        lazy.compute(scheduler="synchronous")
+    with pytest.raises(ValueError, match=r"first at index \(4, 3\)"):
+        co.share(x, 0.9)  # the same position as NumPy reports
+
+
+def test_error_position_with_broadcast_chunks_and_several_outputs():
+    own = da.from_array(np.linspace(0.1, 0.9, 8), chunks=3)
+    other = np.full(8, 0.9)
+    other[7] = 2.0
+    res = co.solve(own, other)
+    with pytest.raises(ValueError, match=r"other_factor = 2\.0 .*first at index \(7,\)"):
+        res["own_share"].compute(scheduler="synchronous")
+
+
+def test_dask_dataframe_columns_work_directly():
+    import dask.dataframe as dd
+    import pandas as pd
+
+    pdf = pd.DataFrame({"own": [0.9, 0.95, 0.5, 0.7], "other": [0.9, 0.8, 0.5, 0.6],
+                        "outside": [0.0, 0.5, 0.2, 0.3]},
+                       index=pd.Index(["Pell", "Garnet", "Hollis", "Crane"], name="deal"))
+    ddf = dd.from_pandas(pdf, npartitions=2, sort=False)
+    lazy = co.share(ddf["own"], ddf["other"])
+    assert isinstance(lazy, dd.Series)
+    got = lazy.compute(scheduler="synchronous")
+    # (dask may store the index labels as Arrow strings: labels compared, not dtypes)
+    pd.testing.assert_series_equal(got, co.share(pdf["own"], pdf["other"]),
+                                   check_index_type=False)
+    # Rubinstein (1982): (1 - d2)/(1 - d1 d2)
+    np.testing.assert_allclose(got.to_numpy(), (1 - pdf.other) / (1 - pdf.own * pdf.other),
+                               rtol=1e-15)
+    frame = co.solve(ddf["own"], ddf["other"], other_outside=ddf["outside"])
+    assert isinstance(frame, dd.DataFrame)
+    pd.testing.assert_frame_equal(frame.compute(scheduler="synchronous"),
+                                  co.solve(pdf["own"], pdf["other"],
+                                           other_outside=pdf["outside"]),
+                                  check_index_type=False)
+
+
+def test_dask_dataframe_errors_name_the_row_label():
+    import dask.dataframe as dd
+    import pandas as pd
+
+    pdf = pd.DataFrame({"own": [0.9, 0.95, 1.5, 0.7]},
+                       index=pd.Index(["Pell", "Garnet", "Hollis", "Crane"], name="deal"))
+    lazy = co.share(dd.from_pandas(pdf, npartitions=2, sort=False)["own"], 0.9)
+    with pytest.raises(ValueError, match=r"own_factor = 1\.5 .*label 'Hollis'"):
+        lazy.compute(scheduler="synchronous")
