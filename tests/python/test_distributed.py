@@ -5,13 +5,12 @@ Reference: the NumPy evaluation of the same function (checked against published 
 in test_models.py) and Rubinstein (1982) main theorem written here.
 """
 
+import dask.array as da
+import distributed
 import numpy as np
 import pytest
 
 import counteroffer as co
-
-distributed = pytest.importorskip("distributed", reason="scripts/requirements.txt has it")
-da = pytest.importorskip("dask.array")
 
 
 @pytest.fixture(scope="module")
