@@ -26,7 +26,7 @@ C_TYPES = {"bool": "int", "count": "int64_t", "choice": "int"}
 
 _FUNCTION_KEYS = {"id", "name", "calc_name", "summary", "formula", "source", "statuses",
                   "args", "arg", "output", "example", "model", "adapter", "block_kernel"}
-_ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible"}
+_ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip"}
 
 
 class DefinitionError(ValueError):
@@ -44,6 +44,7 @@ class Arg:
     min_count: int
     choices: Tuple[str, ...]
     plausible: Optional[Tuple[float, float]]
+    slip: str  # what a value outside the plausible range suggests
     absent: bool  # the default means "absent" (an optional value: -inf; a count: 0)
 
     @property
@@ -133,10 +134,12 @@ def _arg(name: str, d: Dict[str, Any], path: pathlib.Path) -> Arg:
                 or not plausible[0] <= plausible[1]):
             raise _fail(path, f"argument {name}: 'plausible' must be [low, high]")
         plausible = (float(plausible[0]), float(plausible[1]))
+    if (plausible is None) != ("slip" not in d):
+        raise _fail(path, f"argument {name}: 'plausible' and 'slip' go together")
     return Arg(name=d.get("name", name), label=_str(d, "label", path),
                help=_str(d, "help", path), kind=kind, has_default=has_default,
                default=default, min_count=int(d.get("min", 0)), choices=choices,
-               plausible=plausible, absent=d.get("default") == "absent")
+               plausible=plausible, slip=d.get("slip", ""), absent=d.get("default") == "absent")
 
 
 def load_shared_args(directory: pathlib.Path = FUNCTIONS_DIR) -> Dict[str, Arg]:

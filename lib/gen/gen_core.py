@@ -88,6 +88,9 @@ def rows(functions: List[Function]) -> str:
             lo, hi = a.plausible if a.plausible else (0.0, 0.0)
             out.append(f"    {{{1.0 if a.plausible else 0.0}, {c_double(lo)}, {c_double(hi)}}},")
         out.append("};")
+        out.append(f"constexpr const char *kSlip_{f.name}[] = {{")
+        out += [f"    {c_string(a.slip)}," for a in f.args]
+        out.append("};")
         out.append(f"const cto_output_info kOutputs_{f.name}[] = {{")
         out += [f"    {{{c_string(o.name)}, {c_string(o.help)}}}," for o in f.outputs]
         out.append("};")
@@ -181,7 +184,7 @@ def definitions_json(functions: List[Function]) -> str:
                 "has_default": a.has_default,
                 "default": catalogue.python_default(a) if a.has_default else None,
                 "absent": a.absent, "min_count": a.min_count, "choices": list(a.choices),
-                "plausible": list(a.plausible) if a.plausible else None}
+                "plausible": list(a.plausible) if a.plausible else None, "slip": a.slip}
 
     data = [{"id": f.id, "name": f.name, "calc_name": f.calc_name, "summary": f.summary,
              "formula": f.formula, "source": f.source, "statuses": f.statuses,

@@ -205,6 +205,11 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
     check_out(generic, outs[0], f->name);
     if (generic == CTO_E_INVALID && (bad < 0 || bad >= f->n_args)) finding("no bad argument named", f->name);
     if (generic != CTO_E_INVALID && bad != -1) finding("bad argument named without invalid", f->name);
+    // The reason in words: the same status, a NUL-terminated text within the buffer.
+    char reason[96];
+    std::memset(reason, 'x', sizeof reason);
+    if (cto_explain(f->id, g, reason, sizeof reason) != generic) finding("explain status differs", f->name);
+    if (std::memchr(reason, '\0', sizeof reason) == nullptr) finding("explain text not terminated", f->name);
     // Counts beyond 2^53 have no exact double: the two paths then see different numbers.
     bool exact_counts = true;
     for (int j = 0; j < f->n_args; ++j)

@@ -526,6 +526,17 @@ CTO_API const cto_function_info *cto_function_find(const char *name);
 CTO_API int cto_arg_plausible_range(int function_id, int arg_index, double *low,
                                     double *high);
 
+/*! cto_explain: why catalogue function `id` gives what it gives for these arguments
+ *  (all n_args as doubles, as cto_call takes them), in words, written into text (at most
+ *  size bytes, NUL-terminated; a longer reason is cut): "own_factor = 1.2 is outside 0
+ *  to 1"; "no rational deal (#N/A in Calc): the surplus 100 does not exceed what the
+ *  parties get without a deal (own 70, other 60); ..."; "indeterminate: ..."; "ok, but
+ *  own_rate = 8 is outside the usual 0 to 1: above 100% a year: a percentage typed as a
+ *  whole number? (8% is 0.08)"; or "ok".  Returns the function's status (as cto_call);
+ *  CTO_E_INVALID for an unknown id or NULL args.  text may be NULL (size 0).  Added in
+ *  1.1. */
+CTO_API int cto_explain(int id, const double *args, char *text, size_t size);
+
 /*! cto_call: evaluate catalogue function `id` with all n_args arguments as
  *  doubles (defaults are not applied here: pass every argument).  Writes
  *  n_outputs values to outputs.  *bad_arg (may be NULL) receives the index of

@@ -1,5 +1,6 @@
 // The generic entry points that drive the wrappers: cto_call (one element, every argument
 // as a double) and cto_call_strided (n elements through the function's strided loop).
+#include "../table/reasons.hpp"
 #include "../table/rows.hpp"
 
 using cto::table::Row;
@@ -45,6 +46,25 @@ CTO_API int cto_call_strided(int id, size_t n, const char *const *args,
         report->first_bad_arg = t.first_bad;
     }
     return CTO_OK;
+}
+
+CTO_API int cto_explain(int id, const double *args, char *text, size_t size) {
+    const Row *r = row(id);
+    if (!r || !args) {
+        if (text && size > 0) {
+            const char msg[] = "unknown function or no arguments";
+            const size_t n = sizeof msg - 1 < size - 1 ? sizeof msg - 1 : size - 1;
+            for (size_t i = 0; i < n; ++i) text[i] = msg[i];
+            text[n] = '\0';
+        }
+        return CTO_E_INVALID;
+    }
+    try {
+        return cto::table::explain(*r, args, text, size);
+    } catch (...) {  // nothing here throws; a defect is reported, never propagated
+        if (text && size > 0) text[0] = '\0';
+        return CTO_E_INTERNAL;
+    }
 }
 
 }  // extern "C"

@@ -15,6 +15,7 @@ struct Row {
     Thunk thunk;
     Loop loop;
     const double (*plausible)[3];  // per argument: (has a range, low, high)
+    const char *const *slip;       // per argument: what a value outside it suggests
 };
 
 // The row of catalogue id, or nullptr.
