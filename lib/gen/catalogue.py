@@ -60,6 +60,7 @@ class Arg:
 class Output:
     name: str
     help: str
+    words: Tuple[str, ...] = ()  # a coded output: the word for code 0, 1, ...
 
 
 @dataclasses.dataclass(frozen=True)
@@ -177,7 +178,8 @@ def _function(path: pathlib.Path, shared: Dict[str, Arg]) -> Function:
         if seen_default and not a.has_default:
             raise _fail(path, f"required argument {a.name} after an optional one")
         seen_default = seen_default or a.has_default
-    outputs = tuple(Output(_str(o, "name", path), _str(o, "help", path))
+    outputs = tuple(Output(_str(o, "name", path), _str(o, "help", path),
+                           tuple(o.get("words", ())))
                     for o in d.get("output", [])) or (VALUE_OUTPUT,)
     example = d.get("example", {})
     fid = d.get("id")

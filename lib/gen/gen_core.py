@@ -94,6 +94,14 @@ def rows(functions: List[Function]) -> str:
         out.append(f"const cto_output_info kOutputs_{f.name}[] = {{")
         out += [f"    {{{c_string(o.name)}, {c_string(o.help)}}}," for o in f.outputs]
         out.append("};")
+        for k, o in enumerate(f.outputs):
+            if o.words:
+                items = ", ".join(c_string(w) for w in o.words)
+                out.append(f"constexpr const char *kWords_{f.name}_{k}[] = {{{items}, nullptr}};")
+        out.append(f"constexpr const char *const *kWords_{f.name}[] = {{")
+        out += [f"    {'kWords_' + f.name + '_' + str(k) if o.words else 'nullptr'},"
+                for k, o in enumerate(f.outputs)]
+        out.append("};")
         if f.adapter:
             out.append(f"constexpr Thunk t_{f.name} = entry::{f.name}_thunk;")
         else:
@@ -189,7 +197,8 @@ def definitions_json(functions: List[Function]) -> str:
     data = [{"id": f.id, "name": f.name, "calc_name": f.calc_name, "summary": f.summary,
              "formula": f.formula, "source": f.source, "statuses": f.statuses,
              "args": [arg(a) for a in f.args],
-             "outputs": [{"name": o.name, "help": o.help} for o in f.outputs],
+             "outputs": [{"name": o.name, "help": o.help, "words": list(o.words)}
+                         for o in f.outputs],
              "example": {"scenario": f.example_scenario, "python": f.example_python}}
             for f in functions]
     return json.dumps({"functions": data}, indent=1, ensure_ascii=False) + "\n"

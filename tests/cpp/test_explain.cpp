@@ -95,3 +95,21 @@ TEST_CASE("explain: no deal, indeterminate, unknown function, a short buffer", "
     CHECK(cto_explain(f->id, args, small, sizeof small) == CTO_E_INVALID);
     CHECK(std::string(small) == "own_facto");
 }
+
+TEST_CASE("output words: solve's binding and rational codes", "[explain]") {
+    // The codes are the header's CTO_BINDS_* constants; the words are the project's own.
+    const cto_function_info *f = cto_function_find("solve");
+    REQUIRE(f != nullptr);
+    CHECK(std::string(cto_output_word(f->id, 2, CTO_BINDS_NONE)) == "none");
+    CHECK(std::string(cto_output_word(f->id, 2, CTO_BINDS_OWN)) == "ours");
+    CHECK(std::string(cto_output_word(f->id, 2, CTO_BINDS_OTHER)) == "theirs");
+    CHECK(std::string(cto_output_word(f->id, 2, CTO_BINDS_BOTH)) == "both");
+    CHECK(std::string(cto_output_word(f->id, 3, 1.0)) == "yes");
+    CHECK(std::string(cto_output_word(f->id, 3, 0.0)) == "no");
+    CHECK(cto_output_word(f->id, 2, 4.0) == nullptr);
+    CHECK(cto_output_word(f->id, 2, std::nan("")) == nullptr);
+    CHECK(cto_output_word(f->id, 2, 1.5) == nullptr);
+    CHECK(cto_output_word(f->id, 0, 0.0) == nullptr);  // own_share is not coded
+    CHECK(cto_output_word(f->id, 9, 0.0) == nullptr);
+    CHECK(cto_output_word(-1, 0, 0.0) == nullptr);
+}

@@ -526,6 +526,12 @@ CTO_API const cto_function_info *cto_function_find(const char *name);
 CTO_API int cto_arg_plausible_range(int function_id, int arg_index, double *low,
                                     double *high);
 
+/*! cto_output_word: the word for value `code` of a coded output (output `output_index`
+ *  of function `function_id`): solve's binding 0..3 is "none", "ours", "theirs", "both";
+ *  its rational 0/1 is "no", "yes".  Static, or NULL when the output is not coded or the
+ *  code is not one of its values (NaN included).  Added in 1.1. */
+CTO_API const char *cto_output_word(int function_id, int output_index, double code);
+
 /*! cto_explain: why catalogue function `id` gives what it gives for these arguments
  *  (all n_args as doubles, as cto_call takes them), in words, written into text (at most
  *  size bytes, NUL-terminated; a longer reason is cut): "own_factor = 1.2 is outside 0

@@ -2,6 +2,7 @@
 // from the generated catalogue_rows.inc; nothing here lists a function by hand.
 #include "rows.hpp"
 
+#include <cmath>
 #include <cstring>
 
 #include "../capi/adapters.hpp"
@@ -35,7 +36,7 @@ namespace {
     Row{{sizeof(cto_function_info), id, #name, calc, summary, formula, source, statuses,      \
          CTO_N_OF(kArgs_##name), kArgs_##name, CTO_N_OF(kOutputs_##name), kOutputs_##name}, \
         t_##name,                                                                            \
-        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>, kPlausible_##name, kSlip_##name},
+        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>, kPlausible_##name, kSlip_##name, kWords_##name},
 
 const Row kRows[] = {CTO_CATALOGUE_ROWS};
 constexpr size_t kCount = sizeof(kRows) / sizeof(kRows[0]);
@@ -66,6 +67,16 @@ CTO_API int cto_arg_plausible_range(int function_id, int arg_index, double *low,
     if (low) *low = has ? r->plausible[arg_index][1] : cto::core::kNaN;
     if (high) *high = has ? r->plausible[arg_index][2] : cto::core::kNaN;
     return has ? CTO_OK : CTO_E_INVALID;
+}
+
+CTO_API const char *cto_output_word(int function_id, int output_index, double code) {
+    const cto::table::Row *r = cto::table::row(function_id);
+    if (!r || output_index < 0 || output_index >= r->info.n_outputs) return nullptr;
+    const char *const *w = r->words[output_index];
+    if (!w || !(code >= 0.0) || code != std::floor(code)) return nullptr;
+    for (double k = 0.0; *w; ++w, k += 1.0)
+        if (k == code) return *w;
+    return nullptr;
 }
 
 CTO_API const cto_function_info *cto_function_find(const char *name) {

@@ -16,6 +16,7 @@ struct Row {
     Loop loop;
     const double (*plausible)[3];  // per argument: (has a range, low, high)
     const char *const *slip;       // per argument: what a value outside it suggests
+    const char *const *const *words;  // per output: words for its codes, or nullptr
 };
 
 // The row of catalogue id, or nullptr.
