@@ -65,7 +65,7 @@ def status_text(spec: FunctionSpec, code: int) -> str:
     own = [part.strip() for part in spec.statuses.split(";") if name and name in part
            and part.strip() != name]
     text = _core.status_message(code)
-    return f"{text} ({spec.name}: {'; '.join(own)})" if own else text
+    return f"{text} (for this function: {'; '.join(own)})" if own else text
 
 
 def _position(flat: int, shape: Tuple[int, ...],
