@@ -32,6 +32,15 @@ def office():
 
 
 @pytest.fixture(scope="session")
+def bare_office():
+    """An office without the add-in (a fresh profile): what a colleague without it has."""
+    with tempfile.TemporaryDirectory(prefix="cto_bare_") as bare:
+        with Office(os.path.join(bare, "profile")) as o:
+            assert not o.has_addin()
+            yield o
+
+
+@pytest.fixture(scope="session")
 def out_dir():
     d = os.environ.get("CTO_SAMPLES_OUT") or tempfile.mkdtemp(prefix="cto_samples_out_")
     os.makedirs(d, exist_ok=True)
