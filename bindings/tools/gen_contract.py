@@ -157,8 +157,8 @@ def _section(spec: FunctionSpec) -> List[str]:
     lines += _arguments(spec) + [""]
     lines.append("Outputs:")
     lines.append("")
-    for name, help_ in spec.outputs:
-        shown = _present.legend(name)
+    for k, (name, help_) in enumerate(spec.outputs):
+        shown = _present.legend(name, spec.words(k))
         lines.append(f"- `{name}`: {help_}" + (f". In Python: {shown}." if shown else ""))
     lines += ["", f"Statuses: {spec.statuses}.", ""]
     return lines

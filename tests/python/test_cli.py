@@ -184,7 +184,8 @@ def test_binding_and_rational_are_words_as_in_python():
 
     assert [r["binding"] for r in rows[:2]] == ["theirs", "none"]
     assert rows[0]["binding"] == co.solve(0.9, 0.9, other_outside=0.5).binding
-    assert [r["rational"] for r in rows] == ["true", "true", "false"]  # 0.6 + 0.5 > 1
+    # the library's words for the flag (cto_output_word), as in Calc: 0.6 + 0.5 > 1
+    assert [r["rational"] for r in rows] == ["yes", "yes", "no"]
     assert rows[2]["status"] == "no_deal"
 
 
