@@ -30,8 +30,8 @@ def test_none_inside_a_list_is_an_absent_option_where_the_scalar_call_allows_it(
     got = co.solve(0.9, 0.9, other_outside=[None, 0.5])
     assert got["binding"].tolist() == [co.solve(0.9, 0.9).binding,
                                        co.solve(0.9, 0.9, other_outside=0.5).binding]
-    np.testing.assert_array_equal(got["own_share"], [co.solve(0.9, 0.9).own_share,
-                                                     co.solve(0.9, 0.9, other_outside=0.5).own_share])
+    want = [co.solve(0.9, 0.9).own_share, co.solve(0.9, 0.9, other_outside=0.5).own_share]
+    np.testing.assert_array_equal(got["own_share"], want)
 
 
 def test_implied_factor_says_no_factor_produces_the_share():
