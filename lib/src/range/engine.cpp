@@ -18,7 +18,9 @@ constexpr int kMaxThreads = 64;
 
 using Reps = std::vector<ReplicateData>;
 
-void clear_out(RangeOut *o, const RangeOptions &opt) {
+}  // namespace
+
+void clear_range_out(RangeOut *o, const RangeOptions &opt) {
     const size_t size = o->size;
     *o = RangeOut{};
     o->size = size;
@@ -34,6 +36,8 @@ void clear_out(RangeOut *o, const RangeOptions &opt) {
         o->edge_fraction = none;
     o->replicates = opt.replicates;
 }
+
+namespace {
 
 int fail(RangeOut *o, int status, int bad) {
     o->status = status;
@@ -186,7 +190,7 @@ int sample(const Sampler &s, const RangeOptions &opt, RangeOut *o) {
         for (const ReplicateData &d : reps) {  // the first failure in replicate order
             if (d.status == CTO_OK) continue;
             const int dimension = o->dimension;
-            clear_out(o, opt);  // no estimate of an earlier round survives
+            clear_range_out(o, opt);  // no estimate of an earlier round survives
             o->dimension = dimension;
             return fail(o, d.status, d.bad);
         }
@@ -218,7 +222,7 @@ RangeOptions default_options() {
 
 int run_range(const Model &model, const RangeArg *args, int n_slots, const RangeOptions &opt,
               RangeOut *out) {
-    clear_out(out, opt);
+    clear_range_out(out, opt);
     if (n_slots < 1 || n_slots > kSobolDims) return fail(out, CTO_E_INTERNAL, -1);
     try {
         Sampler s{};
@@ -232,7 +236,7 @@ int run_range(const Model &model, const RangeArg *args, int n_slots, const Range
         for (int j = 0; j < n_slots; ++j) out->dimension += s.uncertain[j] ? 1 : 0;
         return sample(s, opt, out);
     } catch (...) {  // std::bad_alloc, std::system_error from std::thread
-        clear_out(out, opt);
+        clear_range_out(out, opt);
         return fail(out, CTO_E_INTERNAL, -1);
     }
 }

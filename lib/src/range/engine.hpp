@@ -44,6 +44,10 @@ namespace cto::core::range {
 // The default options: p = 0.1, 0.5, 0.9; seed 0; R = 16; 3 digits; 2^10 .. 2^20; 1 thread.
 RangeOptions default_options();
 
+// Resets *out (keeping out->size) to "no estimate": NaN estimates, status CTO_OK, bad -1,
+// the spec version and the requested probabilities.
+void clear_range_out(RangeOut *out, const RangeOptions &opt);
+
 // Runs the engine over `model` with inputs args[0..n_slots) (n_slots <= kSobolDims).
 // Writes every field of *out on every path (NaN estimates when there is none); returns
 // out->status.  Nothing escapes as an exception.
