@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 #include <new>
 #include <thread>
 #include <vector>
@@ -225,8 +226,10 @@ int run_range(const Model &model, const RangeArg *args, int n_slots, const Range
     clear_range_out(out, opt);
     if (n_slots < 1 || n_slots > kSobolDims) return fail(out, CTO_E_INTERNAL, -1);
     try {
-        Sampler s{};
-        const int bad_arg = build_sampler(model, args, n_slots, opt.seed, &s);
+        // The sampler holds a PERT table per input (a few kB each): on the heap.
+        const std::unique_ptr<Sampler> sp(new Sampler{});
+        const Sampler &s = *sp;
+        const int bad_arg = build_sampler(model, args, n_slots, opt.seed, sp.get());
         if (bad_arg >= 0) return fail(out, CTO_E_INVALID, bad_arg);
         int bad = -1;
         const int st = probe(s, args, &bad);
