@@ -154,9 +154,10 @@ Estimate replicate_estimate(const Reps &reps, double t, std::vector<double> &tmp
 
 // Fills the estimates for n points per replicate; returns whether the target is met.
 bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
+    std::vector<uint64_t> keys;
     for (ReplicateData &d : reps) {
-        sort_total(d.own.data(), n);
-        sort_total(d.other.data(), n);
+        sort_total(d.own.data(), n, keys);
+        sort_total(d.other.data(), n, keys);
     }
     const double t = t975(static_cast<int>(reps.size()) - 1);
     std::vector<double> tmp(reps.size());
