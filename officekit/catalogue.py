@@ -70,3 +70,13 @@ def functions(probe=True):
 def methods():
     """{Calc name: stored method name} for every function of the add-in."""
     return {f.calc: f.method for f in functions()}
+
+
+def plausible_range(name, arg):
+    """(low, high) of the values of argument `arg` of catalogue function `name` that
+    look like what a user means (cto_arg_plausible_range), or None when the argument
+    has no such range."""
+    row = next(f for f in _core.catalogue() if f["name"] == name)
+    index = [a["name"] for a in row["args"]].index(arg)
+    got = _core.arg_plausible_range(row["id"], index)
+    return None if got is None else (float(got[0]), float(got[1]))
