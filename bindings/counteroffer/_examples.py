@@ -9,9 +9,9 @@ there, keyed by the function's name in the library's table.
 
 from __future__ import annotations
 
-import importlib.resources
-import json
 from typing import Dict, NamedTuple
+
+from ._definitions import definitions
 
 
 class Example(NamedTuple):
@@ -20,16 +20,11 @@ class Example(NamedTuple):
 
 
 def _load() -> Dict[str, Example]:
-    try:
-        text = importlib.resources.files(__package__).joinpath("definitions.json").read_text(
-            encoding="utf-8")
-    except (FileNotFoundError, OSError):  # a source tree without a build: no examples
-        return {}
     out: Dict[str, Example] = {}
-    for f in json.loads(text)["functions"]:
+    for name, f in definitions().items():
         example = f.get("example") or {}
         if example.get("scenario") and example.get("python"):
-            out[f["name"]] = Example(example["scenario"], example["python"])
+            out[name] = Example(example["scenario"], example["python"])
     return out
 
 
