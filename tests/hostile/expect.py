@@ -53,19 +53,20 @@ BASE = {
     "screening_profit": [1.0, 0.5, 0.45, 0.9, 0.8],
     "call_probe": [3.0, 4.0, 1.0, 1.0],  # the add-in's probe: returns its first argument
 }
-TYPICAL = {REAL: 1.0, UNIT: 0.9, NONNEG: 0.1, POS: 1.0, BOOL: True, OPTIONAL: 0.0}
+TYPICAL = {REAL: 0.0, UNIT: 0.9, NONNEG: 0.1, POS: 1.0, BOOL: True, OPTIONAL: 0.0}
 
 
 def typical_call(args):
-    """A call from the argument kinds alone: the default where there is one."""
+    """A valid call from the argument kinds alone: the default where there is one, else
+    a typical value of the kind (money 0, factors 0.9, rates 0.1, counts 2)."""
     out = []
     for a in args:
-        if a.kind == COUNT:
-            out.append(float(max(a.extra, 1)))
-        elif a.kind == CHOICE:
-            out.append(a.extra[0])
-        elif a.default is not None and a.kind not in (BOOL, OPTIONAL):
-            out.append(a.default)
+        if a.kind == CHOICE:
+            out.append(a.extra[int(a.default or 0)])
+        elif a.default is not None and a.kind != OPTIONAL:
+            out.append(bool(a.default) if a.kind == BOOL else a.default)
+        elif a.kind == COUNT:
+            out.append(float(max(a.extra, 2)))
         else:
             out.append(TYPICAL[a.kind])
     return out
