@@ -210,3 +210,46 @@ TEST_CASE("share_swing over solve_rates: each input at its ends, sorted by swing
         if (s.row[k].input == 1) CHECK(s.row[k].at_high > s.row[k].at_low);
     }
 }
+
+TEST_CASE("share_range over solve_rates: every numeric input uncertain", "[range]") {
+    // Twelve uncertain inputs (a fictional deal: quarterly offers, walk-away values on both
+    // sides, status-quo income, money amounts in millions).  Checks of consistency that
+    // hold for any correct engine: finite estimates, quantiles in order, fractions in
+    // [0, 1], rational + edge >= 1 - (boundary draws), the swing sorted with 12 rows,
+    // and the same bits with two threads.
+    RangeIn in = base_in();
+    in.arg[0] = pert(0.06, 0.09, 0.15);
+    in.arg[1] = tri(0.04, 0.07, 0.12);
+    in.arg[2] = uni(60, 120);
+    in.arg[3] = pert(0.0, 0.03, 0.10);
+    in.arg[4] = tri(1.0, 2.0, 3.0);
+    in.arg[5] = tri(0.5, 1.5, 4.0);
+    in.arg[6] = uni(0.0, 1.0);
+    in.arg[7] = uni(0.0, 0.5);
+    in.arg[8] = pert(2.0, 3.0, 6.0);
+    in.arg[9] = tri(1.0, 2.5, 5.0);
+    in.arg[10] = pert(8.0, 10.0, 14.0);
+    in.arg[12] = uni(360, 366);
+    in.arg[13] = fixed(0.0);
+    RangeOptions o = options({0.1, 0.5, 0.9}, 17, 10, 14);
+    const RangeOut out = range(in, o);
+    REQUIRE((out.status == CTO_OK || out.status == kPrecisionNotReached));
+    CHECK(out.dimension == 12);
+    for (int k = 0; k < 3; ++k) {
+        CHECK(std::isfinite(out.own[k].value));
+        CHECK(std::isfinite(out.other[k].half_width));
+        if (k > 0) CHECK(out.own[k].value >= out.own[k - 1].value);
+    }
+    for (const Estimate *e : {&out.p_rational, &out.p_own_binds, &out.p_other_binds, &out.edge_fraction}) {
+        CHECK(e->value >= 0.0);
+        CHECK(e->value <= 1.0);
+    }
+    CHECK(out.p_rational.value + out.edge_fraction.value >= 1.0 - 1e-12);
+    o.threads = 2;
+    CHECK(same_result(out, range(in, o)));
+    SwingOut s{};
+    s.size = sizeof s;
+    REQUIRE(share_swing(in, &s) == CTO_OK);
+    CHECK(s.n_rows == 12);
+    for (int k = 1; k < s.n_rows; ++k) CHECK(s.row[k].swing <= s.row[k - 1].swing);
+}
