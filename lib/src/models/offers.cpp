@@ -12,6 +12,7 @@
 // the offerer's payoff is the price, so the equilibrium conditions coincide; the money
 // results map back by offer = c + x (seller) or u - x (buyer), cutoff likewise.
 #include <algorithm>
+#include <cfloat>
 #include <cmath>
 
 #include "offers.hpp"
@@ -57,6 +58,7 @@ void linear_finite(const Canon &p, OfferRow *rows, int64_t cap, OfferTotals *o) 
         r = omn + mn * (q + r);
         q = omn + mn * q;
         prod *= mn;
+        if (prod < DBL_MIN) prod = 0.0;  // no subnormal steps (slow); the cutoff is c
         l = ln, oml = omln, m = mn, om = omn;
         if (T - n < cap) rows[T - n] = {l, m, om, 0.0};
     }
@@ -77,6 +79,7 @@ void linear_finite(const Canon &p, OfferRow *rows, int64_t cap, OfferTotals *o) 
         cum += pi;
         rows[t] = {s.offer * hp, s.cutoff * hp, pi, std::min(cum, 1.0)};
         hp *= s.cutoff;
+        if (hp < DBL_MIN * p.h) hp = 0.0;  // below every representable share of H
     }
 }
 

@@ -270,8 +270,29 @@ int make_frame(double s_lo, double s_hi, double b_lo, double b_hi, double k, Fra
 
 }  // namespace
 
+namespace {
+int solve(double seller_low, double seller_high, double buyer_low, double buyer_high,
+          double k, bool bounds, TradeOut *o, int *bad);
+}  // namespace
+
 int double_auction(double seller_low, double seller_high, double buyer_low,
                    double buyer_high, double k, TradeOut *o, int *bad) {
+    return solve(seller_low, seller_high, buyer_low, buyer_high, k, true, o, bad);
+}
+
+// The probability alone skips the first and second best (the bisection for g*).
+int trade_probability(double seller_low, double seller_high, double buyer_low,
+                      double buyer_high, double k, double *out, int *bad) {
+    TradeOut o;
+    const int st = solve(seller_low, seller_high, buyer_low, buyer_high, k, false, &o, bad);
+    *out = o.trade_probability;
+    return st;
+}
+
+namespace {
+// The whole outcome; `bounds` adds the first and second best and the ratios.
+int solve(double seller_low, double seller_high, double buyer_low, double buyer_high,
+          double k, bool bounds, TradeOut *o, int *bad) {
     o->regime = kTradeNone;
     o->flags = 0;
     set_all(o, kNaN);
@@ -292,7 +313,7 @@ int double_auction(double seller_low, double seller_high, double buyer_low,
     }
     double b_floor, a_ceil;
     solve_scaled(f, o, &b_floor, &a_ceil);
-    efficiency_bounds(f, o);
+    if (bounds) efficiency_bounds(f, o);
     const double S = f.S;
     o->efficiency = o->total_gain / o->first_best_gain;
     o->second_best_efficiency = o->second_best_gain / o->first_best_gain;
@@ -311,8 +332,8 @@ int double_auction(double seller_low, double seller_high, double buyer_low,
         o->price_high = buyer_low;
     }
     const double must[] = {o->trade_probability, o->buyer_gain, o->seller_gain,
-                           o->total_gain, o->first_best_gain, o->second_best_gain,
-                           o->expected_price};
+                           o->total_gain, bounds ? o->first_best_gain : 0.0,
+                           bounds ? o->second_best_gain : 0.0, o->expected_price};
     for (double x : must) {
         if (!std::isfinite(x)) {  // finite inputs whose results leave the double range
             o->flags = 0;
@@ -324,14 +345,7 @@ int double_auction(double seller_low, double seller_high, double buyer_low,
     }
     return CTO_OK;
 }
-
-int trade_probability(double seller_low, double seller_high, double buyer_low,
-                      double buyer_high, double k, double *out, int *bad) {
-    TradeOut o;
-    const int st = double_auction(seller_low, seller_high, buyer_low, buyer_high, k, &o, bad);
-    *out = o.trade_probability;
-    return st;
-}
+}  // namespace
 
 double TradeStrategies::ask(double cost) const {
     const double line = s_lo + ((cost - s_lo) + (1.0 - k) * (b_hi_line - s_lo)) / (2.0 - k);
