@@ -373,7 +373,54 @@ class DealFunctions
         return css::uno::Any(res);
     }
 
+    // The catalogue function called `name` (its Calc name, its outcome form's, or its
+    // catalogue name; any case), or nullptr.
+    const cto_function_info *find(const OUString &name) const {
+        const OUString n = name.trim();
+        for (const cto_function_info *f : table_) {
+            if (!f) continue;
+            if (n.equalsIgnoreAsciiCaseAscii(f->calc_name) ||
+                n.equalsIgnoreAsciiCaseAscii(f->name) ||
+                n.equalsIgnoreAsciiCase(OUString::createFromAscii(f->calc_name) + "OUTCOME"))
+                return f;
+        }
+        return nullptr;
+    }
+
   public:
+    // DEALREASON: the library's reason (cto_explain) as text, for the same arguments
+    // converted as the function itself would convert them; a range gives its first
+    // element.  It never fails on the user's input: every mistake is a reason.
+    css::uno::Any reason(const OUString &name, const css::uno::Sequence<css::uno::Any> &args) {
+        try {
+            const cto_function_info *f = find(name);
+            if (!f)
+                return css::uno::Any("unknown function \"" + name.trim() +
+                                     "\": give the name of a DEAL function, e.g. \"DEALSOLVE\"");
+            const OUString calc = OUString::createFromAscii(f->calc_name);
+            if (args.getLength() > f->n_args)
+                return css::uno::Any(calc + " takes at most " + OUString::number(f->n_args) +
+                                     " arguments; " + OUString::number(args.getLength()) +
+                                     " were given");
+            double in[kMaxArgs];
+            const css::uno::Any none;
+            for (int j = 0; j < f->n_args && j < kMaxArgs; ++j) {
+                const css::uno::Any &a = j < args.getLength() ? args[j] : none;
+                View v;
+                in[j] = make_view(Arg(a), v) ? to_double(v.first(), f->args[j]) : kNaN;
+            }
+            char text[512];
+            cto_explain(f->id, in, text, sizeof text);
+            return css::uno::Any(calc + ": " +
+                                 OUString(text, static_cast<sal_Int32>(std::strlen(text)),
+                                          RTL_TEXTENCODING_UTF8));
+        } catch (const css::uno::Exception &) {
+            throw;
+        } catch (...) {
+            throw css::uno::RuntimeException("counteroffer: unexpected failure");
+        }
+    }
+
     // DEALCALLPROBE: the same argument conversion as every function, no model.
     css::uno::Any probe(const Arg *args) {
         try {

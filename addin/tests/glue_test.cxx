@@ -54,6 +54,13 @@ int cto_call(int id, const double *a, double *o, int *bad) {
     }
     return st;
 }
+// The reason: "reason <value> <flag> <pick>" with the status cto_call gives.
+int cto_explain(int id, const double *a, char *text, size_t size) {
+    double o[2];
+    const int st = cto_call(id, a, o, nullptr);
+    std::snprintf(text, size, "reason %g %g %g", a[0], a[2], a[3]);
+    return st;
+}
 int cto_call_strided(int id, size_t n, const char *const *args, const ptrdiff_t *as,
                      char *const *outs, const ptrdiff_t *os, signed char *st, ptrdiff_t ss,
                      cto_batch_report *) {
@@ -185,6 +192,30 @@ int main() {
         threw = true;
     }
     check(threw, "ranges of different shapes -> IllegalArgument");
+    // DEALREASON: the function found by its Calc or catalogue name in any case, the
+    // arguments converted as the function converts them (defaults for the missing ones,
+    // a range's first element), the library's text after the Calc name; a mistake in the
+    // name or the count of arguments is itself a reason, never an error value.
+    auto reason = [&](const char *name, std::initializer_list<css::uno::Any> as) {
+        css::uno::Sequence<css::uno::Any> seq(static_cast<sal_Int32>(as.size()));
+        sal_Int32 i = 0;
+        for (const auto &x : as) seq.getArray()[i++] = x;
+        OUString text;
+        f->reason(OUString::createFromAscii(name), seq) >>= text;
+        return text;
+    };
+    check(reason("dealfake", {v, css::uno::Any(0.0)}) == "DEALFAKE: reason 0.25 1 0",
+          "reason: Calc name in any case, defaults applied");
+    check(reason("fake", {css::uno::Any(column({css::uno::Any(2.0), v})), css::uno::Any(0.0),
+                          css::uno::Any(OUString("false")), css::uno::Any(OUString("beta"))}) ==
+              "DEALFAKE: reason 2 0 1",
+          "reason: catalogue name; a range gives its first element; text choices converted");
+    check(reason(" DEALFAKEOUTCOME ", {v, css::uno::Any(0.0)}).startsWith("DEALFAKE: reason"),
+          "reason: the outcome form's name");
+    check(reason("DEALNOPE", {v}).startsWith("unknown function \"DEALNOPE\""),
+          "reason: an unknown name is a reason");
+    check(reason("DEALFAKE", {v, v, v, v, v}) == "DEALFAKE takes at most 4 arguments; 5 were given",
+          "reason: too many arguments is a reason");
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;
 }

@@ -456,6 +456,88 @@ CTO_API int cto_screening_profit(double high_value, double low_value,
                                  double buyer_factor, double *out);
 
 /* =========================================================================
+ * Private information: two-sided private values
+ * ========================================================================= */
+
+/* Regimes of cto_double_auction (pinned; only ever appended). */
+#define CTO_TRADE_NONE 0        /* buyer_high <= seller_low: no gains from trade      */
+#define CTO_TRADE_ONE_PRICE 1   /* only one-price equilibria                           */
+#define CTO_TRADE_TRIANGLE 2    /* linear equilibrium, no clamp binds                  */
+#define CTO_TRADE_CLAMPED 3     /* linear equilibrium with clamped asks and/or bids     */
+#define CTO_TRADE_POSTED_ASK 4  /* the seller's cost is known: a posted ask           */
+#define CTO_TRADE_POSTED_BID 5  /* the buyer's value is known: a posted bid           */
+/* Flags of cto_double_auction, or-ed together. */
+#define CTO_TRADE_FLAG_ONE_PRICE_EXISTS 1   /* efficient one-price equilibria exist    */
+#define CTO_TRADE_FLAG_CONVENTION 2         /* expected_price is a convention's value  */
+#define CTO_TRADE_FLAG_NEAR_BOUNDARY 4      /* within 1e-9 D of a regime boundary      */
+#define CTO_TRADE_FLAG_FIRST_BEST_FEASIBLE 8 /* some mechanism attains the first best  */
+
+/*! Outcome of cto_double_auction.  Set size = sizeof(cto_trade_outcome) before the call;
+ *  fields are only ever appended.  Money in the units of the inputs. */
+typedef struct cto_trade_outcome {
+    size_t size;
+    int regime;                      /* CTO_TRADE_*                                   */
+    int flags;                       /* CTO_TRADE_FLAG_* bits                         */
+    double trade_probability;        /* P(trade)                                      */
+    double expected_price;           /* E[price | trade]; NaN without trade           */
+    double buyer_gain;               /* E[(v - p) 1{trade}], ex ante                  */
+    double seller_gain;              /* E[(p - c) 1{trade}], ex ante                  */
+    double total_gain;               /* buyer_gain + seller_gain                      */
+    double first_best_gain;          /* E[(v - c)+]                                   */
+    double first_best_probability;   /* P(v >= c)                                     */
+    double second_best_gain;         /* Myerson-Satterthwaite bound on any mechanism  */
+    double second_best_threshold;    /* g*: trade iff v - c >= g* in the best rule    */
+    double second_best_probability;  /* P(v - c >= g*)                                */
+    double efficiency;               /* total_gain / first_best_gain                  */
+    double second_best_efficiency;   /* second_best_gain / first_best_gain            */
+    double price_low, price_high;    /* one-price interval [s_hi, b_lo], else NaN     */
+    double ask_floor;                /* the lowest ask (clamp); NaN if not linear     */
+    double bid_ceiling;              /* the highest bid (clamp); NaN if not linear    */
+} cto_trade_outcome;
+
+/*! cto_double_auction: the linear equilibrium of the k-double auction with uniform private
+ *  values (Chatterjee & Samuelson 1983; Gibbons 1992 s.3.2.C), generalised to any two
+ *  intervals with clamped strategies, its trade probability, expected price and gains,
+ *  against the first best and the Myerson-Satterthwaite (1983, Theorem 1 and Corollary 1)
+ *  second best.
+ *  The seller's cost c ~ U[s_lo, s_hi] and the buyer's value v ~ U[b_lo, b_hi] are
+ *  private and independent.  Both name a price at once (ask a, bid b); they trade iff
+ *  b >= a at p = k b + (1 - k) a.  With D = b_hi - s_lo,
+ *      A_lo = s_lo + (1 - k) D/2,   B_hi = s_lo + (2 - k) D/2,
+ *      ask a(c) = max(B_lo, (c + (1 - k) B_hi)/(2 - k)),
+ *      bid b(v) = min(A_hi, (v + k A_lo)/(1 + k)),
+ *  B_lo = the unclamped bid of b_lo, A_hi = the unclamped ask of s_hi.  Trade happens
+ *  iff v - A_lo >= (1 + k)/(2 - k) (c - s_lo); for [0,1]^2 and k = 1/2 iff v >= c + 1/4.
+ *  The expectations are exact integrals of affine functions over the clipped trade
+ *  polygons (no quadrature).  When B_lo > A_hi only one-price equilibria remain: every
+ *  type names one p0 in [s_hi, b_lo]; trade is certain and efficient and the point value
+ *  p0 = k s_hi + (1 - k) b_lo is a convention (flag).  A known cost (s_lo = s_hi) gives
+ *  a posted ask A* = s + (1 - k)(b_hi - s)/2, a known value a posted bid
+ *  B* = u - k (u - s_lo)/2 (the limits of the linear equilibrium).
+ *  Second best: trade iff v - c >= g*, g* the root in (0, D/2) of
+ *  E[(2(v - c) - D) 1{v - c >= g}] = 0 (uniform virtual values); g* = 0 and the second
+ *  best equals the first best when s_hi <= b_lo or one interval is a point.
+ *  Arguments (catalogue order): seller_low s_lo <= seller_high s_hi, buyer_low b_lo <=
+ *  buyer_high b_hi (money, finite); k in [0, 1], the weight of the bid in the price
+ *  (k = 1/2 splits the difference).
+ *  Status: CTO_OK -> every field (expected_price NaN only if P(trade) underflows);
+ *          CTO_E_NO_DEAL (b_hi <= s_lo: no gains) -> regime none, probabilities and gains
+ *          0, prices, ratios and g* NaN;
+ *          CTO_E_INVALID (NaN or infinite argument, a low above its high (index of the
+ *          high), k outside [0, 1], spreads that overflow) -> every field NaN.
+ *  Accuracy: relative error <= 1e-14 against 50-digit quadrature of the strategies
+ *  (tests/reference/private), absolute 1e-14 x D for gains near zero; g* to about
+ *  1e-15 x D / (density of v - c at g*).
+ *  Added in 1.1. */
+CTO_API int cto_double_auction(double seller_low, double seller_high, double buyer_low,
+                               double buyer_high, double k, cto_trade_outcome *out);
+
+/*! cto_trade_probability: P(trade) of cto_double_auction (same arguments and statuses;
+ *  0 with CTO_E_NO_DEAL, NaN with CTO_E_INVALID), as a scalar function.  Added in 1.1. */
+CTO_API int cto_trade_probability(double seller_low, double seller_high, double buyer_low,
+                                  double buyer_high, double k, double *out);
+
+/* =========================================================================
  * The catalogue as data: one table that drives the wrappers
  * =========================================================================
  * Every function above is described once here: its name, its Calc name, its
@@ -493,6 +575,11 @@ typedef struct cto_output_info {
     const char *name;            /* e.g. "own_share"                                */
     const char *help;            /* one line                                        */
 } cto_output_info;
+
+/* No catalogue function has more arguments or outputs than these (buffers for cto_call
+ * may be sized by them).  Added in 1.1. */
+#define CTO_MAX_ARGS 32
+#define CTO_MAX_OUTPUTS 32
 
 typedef struct cto_function_info {
     size_t size;                 /* sizeof(cto_function_info) of the library        */
