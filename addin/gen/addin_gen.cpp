@@ -120,62 +120,61 @@ std::string default_text(const cto_arg_info &a) {
     return s.str();
 }
 
-std::vector<Method> collect() {
-    std::vector<Method> ms;
-    const size_t n = cto_function_count();
-    for (size_t i = 0; i < n; ++i) {
-        const cto_function_info *f = cto_function_at(i);
-        // A function without a Calc name of its own (its Calc form is another function's,
-        // e.g. trade_probability is DEALTRADE, the first output of double_auction).
-        if (!f || !f->name || !f->calc_name || !*f->calc_name) continue;
-        Method m;
-        m.method = "get" + camel(f->name);
-        m.calc = f->calc_name;
-        m.desc = sentence(f->summary ? f->summary : "") + ". Source: " +
-                 (f->source ? f->source : "") + "." + kNotice;
-        m.category = "Financial";
-        m.id = f->id;
-        m.outcome = false;
-        for (int j = 0; j < f->n_args; ++j) {
-            const cto_arg_info &a = f->args[j];
-            // UNO IDL allows no lower-case letter after an underscore: ownFactor.
-            std::string p = camel(a.name);
-            p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
-            if (idl_reserved(p)) p += "Arg";
-            m.params.push_back(p);
-            m.optional.push_back(a.has_default != 0);
-            m.labels.push_back(a.label ? a.label : a.name);
-            std::string h = sentence(a.help ? a.help : "");
-            if (a.has_default) {
-                if (h.find("default") == std::string::npos)
-                    h += " (default " + default_text(a) + ")";
-                h += ". Optional.";
-            } else {
-                h += ". Required.";
-            }
-            m.helps.push_back(h);
+// The method of catalogue function f, with its arguments' Function Wizard text.
+Method catalogue_method(const cto_function_info *f) {
+    Method m;
+    m.method = "get" + camel(f->name);
+    m.calc = f->calc_name;
+    m.desc = sentence(f->summary ? f->summary : "") + ". Source: " +
+             (f->source ? f->source : "") + "." + kNotice;
+    m.category = "Financial";
+    m.id = f->id;
+    m.outcome = false;
+    for (int j = 0; j < f->n_args; ++j) {
+        const cto_arg_info &a = f->args[j];
+        // UNO IDL allows no lower-case letter after an underscore: ownFactor.
+        std::string p = camel(a.name);
+        p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
+        if (idl_reserved(p)) p += "Arg";
+        m.params.push_back(p);
+        m.optional.push_back(a.has_default != 0);
+        m.labels.push_back(a.label ? a.label : a.name);
+        std::string h = sentence(a.help ? a.help : "");
+        if (a.has_default) {
+            if (h.find("default") == std::string::npos)
+                h += " (default " + default_text(a) + ")";
+            h += ". Optional.";
+        } else {
+            h += ". Required.";
         }
-        ms.push_back(m);
-        if (f->n_outputs > 1) {
-            Method o = m;
-            o.method += "Outcome";
-            o.calc += "OUTCOME";
-            std::string outs;
-            for (int k = 0; k < f->n_outputs; ++k)
-                outs += std::string(k ? ", " : "") + f->outputs[k].name;
-            o.desc = sentence(f->summary ? f->summary : "") +
-                     "; array form, one row per case with the columns " + outs +
-                     " (enter as a matrix formula). Source: " + (f->source ? f->source : "") +
-                     "." + kNotice;
-            o.outcome = true;
-            ms.push_back(o);
-        }
+        m.helps.push_back(h);
     }
+    return m;
+}
+
+// The array form of a function with several outputs: every output as a column.
+Method outcome_method(const cto_function_info *f, const Method &m) {
+    Method o = m;
+    o.method += "Outcome";
+    o.calc += "OUTCOME";
+    std::string outs;
+    for (int k = 0; k < f->n_outputs; ++k)
+        outs += std::string(k ? ", " : "") + f->outputs[k].name;
+    o.desc = sentence(f->summary ? f->summary : "") +
+             "; array form, one row per case with the columns " + outs +
+             " (enter as a matrix formula). Source: " + (f->source ? f->source : "") + "." +
+             kNotice;
+    o.outcome = true;
+    return o;
+}
+
+// The call-overhead probe, with the argument shape of DEALSHARE (two required, two
+// optional), so that comparing the two measures the add-in's own work and not Calc's
+// cost per parameter.
+Method probe_method() {
     Method probe;
     probe.method = "getCallProbe";
     probe.calc = "DEALCALLPROBE";
-    // The argument shape of DEALSHARE (two required, two optional), so that comparing
-    // the two measures the add-in's own work and not Calc's cost per parameter.
     probe.desc = "Diagnostic: returns its first argument after the same argument "
                  "conversion as every DEAL function, with the argument shape of DEALSHARE; "
                  "measures the cost of an add-in call.";
@@ -189,7 +188,11 @@ std::vector<Method> collect() {
                    "Any number; converted and ignored (default 1). Optional."};
     probe.id = -1;
     probe.outcome = false;
-    ms.push_back(probe);
+    return probe;
+}
+
+// DEALREASON: a function's name, then its arguments (varargs).
+Method reason_method() {
     Method why;
     why.method = "getReason";
     why.calc = "DEALREASON";
@@ -208,7 +211,22 @@ std::vector<Method> collect() {
     why.id = -1;
     why.outcome = false;
     why.reason = true;
-    ms.push_back(why);
+    return why;
+}
+
+std::vector<Method> collect() {
+    std::vector<Method> ms;
+    const size_t n = cto_function_count();
+    for (size_t i = 0; i < n; ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        // A function without a Calc name of its own (its Calc form is another function's,
+        // e.g. trade_probability is DEALTRADE, the first output of double_auction).
+        if (!f || !f->name || !f->calc_name || !*f->calc_name) continue;
+        ms.push_back(catalogue_method(f));
+        if (f->n_outputs > 1) ms.push_back(outcome_method(f, ms.back()));
+    }
+    ms.push_back(probe_method());
+    ms.push_back(reason_method());
     return ms;
 }
 

@@ -128,10 +128,10 @@ std::uint32_t code_of(double d) {
     std::memcpy(&bits, &d, sizeof bits);
     return std::isnan(d) ? static_cast<std::uint32_t>(bits & 0xffffffffu) : 0;
 }
-} // namespace
 
-int main() {
-    rtl::Reference<DealFunctions> f(new DealFunctions);
+
+// Status -> Calc (addin/README.md "Error values") and argument conversion.
+void check_scalars(const rtl::Reference<DealFunctions> &f) {
     const css::uno::Any v(0.25);
     double got = 0;
     // Status -> Calc (addin/README.md "Error values").
@@ -156,7 +156,11 @@ int main() {
               Outcome::Illegal, "unknown choice -> invalid");
     check(scalar(*f, v, CTO_OK, css::uno::Any(OUString("yes"))) == Outcome::Illegal,
           "bad boolean text -> invalid");
-    // Arrays: one element per status, each with its own code.
+}
+
+// Arrays: one element per status, each with its own code; the outcome form; shapes.
+void check_arrays(const rtl::Reference<DealFunctions> &f) {
+    const css::uno::Any v(0.25);
     const Mixed vals = column({v, v, v, v, v, v, css::uno::Any()});
     const Mixed sts = column({css::uno::Any(0.0), css::uno::Any(1.0), css::uno::Any(2.0),
                               css::uno::Any(3.0), css::uno::Any(4.0), css::uno::Any(5.0),
@@ -192,6 +196,10 @@ int main() {
         threw = true;
     }
     check(threw, "ranges of different shapes -> IllegalArgument");
+}
+
+void check_reason(const rtl::Reference<DealFunctions> &f) {
+    const css::uno::Any v(0.25);
     // DEALREASON: the function found by its Calc or catalogue name in any case, the
     // arguments converted as the function converts them (defaults for the missing ones,
     // a range's first element), the library's text after the Calc name; a mistake in the
@@ -216,6 +224,14 @@ int main() {
           "reason: an unknown name is a reason");
     check(reason("DEALFAKE", {v, v, v, v, v}) == "DEALFAKE takes at most 4 arguments; 5 were given",
           "reason: too many arguments is a reason");
+}
+} // namespace
+
+int main() {
+    rtl::Reference<DealFunctions> f(new DealFunctions);
+    check_scalars(f);
+    check_arrays(f);
+    check_reason(f);
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;
 }
