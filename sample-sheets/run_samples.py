@@ -1,28 +1,35 @@
 #!/usr/bin/env python3
-"""Recalculates every sample sheet headless and writes a PDF and a CSV of each.
+"""Recalculates every sample sheet headless and writes its report and shareable copies.
 
   run_samples.py --profile DIR --out DIR SHEET.fods...
 
 DIR (profile) is a private LibreOffice profile with the counteroffer add-in installed.
 For each sheet: load, recalculate everything, refuse any error cell (the add-in's
-error values are listed in addin/README.md), write OUT/<name>.pdf (every page, charts
-included) and OUT/<name>.csv (the sheet's cells, UTF-8, comma separated, full
-precision), check that both exist and are not empty, and print one progress line.
-Ends with a summary table of the key results (named cells key_*).  Exit status 0
-only when every sheet passed; otherwise the failures are named on stderr.
+error values are listed in addin/README.md) and a failed input check, hide the empty
+rows of its tables (named ranges report_rows*) for the report, write OUT/<name>.pdf
+(every page, charts included) and OUT/<name>.csv (the sheet's cells, UTF-8, comma
+separated, full precision), then the frozen copies OUT/<name>-values.xlsx and .ods for
+colleagues without the add-in (share.py); check that every file exists and is not
+empty, and print one progress line.  The blank template (named cell blank_template,
+inputs empty) gets its PDF and is copied to OUT as it is.  Ends with a summary table of
+the key results (named cells key_*).  Exit status 0 only when every sheet passed;
+otherwise the failures are named on stderr.
 """
 import argparse
 import os
+import shutil
 import sys
 import time
+
+import share
 
 from officekit.office import CSV, PDF, SERVICE, Office, prop, url
 
 # Calc's CSV filter: comma, double quote, UTF-8 (76), from line 1, full precision
 # (not "as shown"), formulas as results (STYLE.md s.6).
 CSV_OPTIONS = "44,34,76,1,,0,false,true,false,false,false"
-ERROR_RESULT = 4
-OK_TEXT = "every input filled"  # the sheets' input check (build_samples.py)  # com.sun.star.sheet.FormulaResult.ERROR
+ERROR_RESULT = 4  # com.sun.star.sheet.FormulaResult.ERROR
+OK_TEXT = "every input filled"  # the sheets' input check (layout.py)
 
 
 def used_range(sheet):
@@ -82,14 +89,82 @@ def charts(doc):
     return sum(sheet.Charts.getCount() for sheet in doc.Sheets)
 
 
-def process(office, path, out_dir):
-    """Returns (row for the summary, [problems])."""
-    base = os.path.splitext(os.path.basename(path))[0]
+def trim_report_rows(doc):
+    """The report shows tables as long as their data: in each named range report_rows*
+    the rows whose cells (after the first column) are all empty are hidden, and the
+    charts drawing from them stop at the last row with data.  Only the exported report
+    changes; the file is not saved.  Returns the number of rows hidden."""
+    hidden = 0
+    names = doc.NamedRanges
+    for nm in names.ElementNames:
+        if not nm.startswith("report_rows"):
+            continue
+        rng = names.getByName(nm).ReferredCells
+        addr = rng.RangeAddress
+        sheet = doc.Sheets.getByIndex(addr.Sheet)
+        data = rng.getDataArray()
+        empty = [all(v == "" for v in row[1:]) for row in data]
+        last = addr.StartRow - 1
+        for i, is_empty in enumerate(empty):
+            if is_empty:
+                sheet.Rows.getByIndex(addr.StartRow + i).IsVisible = False
+                hidden += 1
+            else:
+                last = addr.StartRow + i
+        for chart in sheet.Charts:
+            ranges = list(chart.getRanges())
+            for r in ranges:
+                if r.StartRow <= addr.EndRow and r.EndRow >= addr.StartRow:
+                    r.EndRow = min(r.EndRow, max(last, r.StartRow))
+            chart.setRanges(tuple(ranges))
+    return hidden
+
+
+def check_text(doc):
+    if not doc.NamedRanges.hasByName("check_inputs"):
+        return None
+    return doc.NamedRanges.getByName("check_inputs").ReferredCells \
+        .getCellByPosition(0, 0).getString()
+
+
+def export(doc, base, out_dir, blank, when, problems):
+    """The report (PDF, CSV) and, for a filled sheet, the frozen copies."""
     pdf = os.path.join(out_dir, base + ".pdf")
     csv = os.path.join(out_dir, base + ".csv")
-    for f in (pdf, csv):
-        if os.path.exists(f):
-            os.remove(f)
+    doc.storeToURL(url(pdf), (prop("FilterName", PDF),))
+    doc.storeToURL(url(csv), (prop("FilterName", CSV), prop("FilterOptions", CSV_OPTIONS)))
+    files = [pdf, csv]
+    if not blank:
+        share.freeze(doc, base + ".fods", when)
+        files += share.write_copies(doc, out_dir, base)
+    for f in files:
+        if not os.path.isfile(f):
+            problems.append("%s: %s was not written" % (base, f))
+        elif os.path.getsize(f) == 0:
+            problems.append("%s: %s is empty" % (base, f))
+    return files
+
+
+def pdf_pages(pdf, base, problems):
+    if not os.path.isfile(pdf):
+        return 0
+    with open(pdf, "rb") as fh:
+        data = fh.read()
+    if not data.startswith(b"%PDF"):
+        problems.append("%s: %s is not a PDF" % (base, pdf))
+    pages = data.count(b"/Type/Page") - data.count(b"/Type/Pages")
+    if pages < 1:
+        problems.append("%s: %s has no page" % (base, pdf))
+    return pages
+
+
+def process(office, path, out_dir, when=None):
+    """Returns (row for the summary, [problems])."""
+    base = os.path.splitext(os.path.basename(path))[0]
+    when = when or time.strftime("%Y-%m-%d %H:%M UTC", time.gmtime())
+    for ext in (".pdf", ".csv", "-values.xlsx", "-values.ods"):
+        if os.path.exists(os.path.join(out_dir, base + ext)):
+            os.remove(os.path.join(out_dir, base + ext))
     problems = []
     t0 = time.monotonic()
     doc = office.load(path)
@@ -103,39 +178,28 @@ def process(office, path, out_dir):
         if naddin == 0:
             problems.append("%s: no cell calls the counteroffer add-in" % base)
         keys = key_results(doc)
-        if doc.NamedRanges.hasByName("check_inputs"):
-            check = doc.NamedRanges.getByName("check_inputs").ReferredCells \
-                .getCellByPosition(0, 0).getString()
-            if check != OK_TEXT:
-                problems.append("%s: input check says: %s" % (base, check))
-        else:
+        check = check_text(doc)
+        blank = doc.NamedRanges.hasByName("blank_template") and check != OK_TEXT
+        if check is None:
             problems.append("%s: no input check (named cell check_inputs)" % base)
+        elif check != OK_TEXT and not blank:
+            problems.append("%s: input check says: %s" % (base, check))
         nchart = charts(doc)
-        doc.storeToURL(url(pdf), (prop("FilterName", PDF),))
-        doc.storeToURL(url(csv), (prop("FilterName", CSV),
-                                  prop("FilterOptions", CSV_OPTIONS)))
+        hidden = trim_report_rows(doc)
+        files = export(doc, base, out_dir, blank, when, problems) if not errs else []
     finally:
         doc.close(True)
-    for f in (pdf, csv):
-        if not os.path.isfile(f):
-            problems.append("%s: %s was not written" % (base, f))
-        elif os.path.getsize(f) == 0:
-            problems.append("%s: %s is empty" % (base, f))
-    pages = 0
-    if os.path.isfile(pdf):
-        with open(pdf, "rb") as fh:
-            data = fh.read()
-        if not data.startswith(b"%PDF"):
-            problems.append("%s: %s is not a PDF" % (base, pdf))
-        pages = data.count(b"/Type/Page") - data.count(b"/Type/Pages")
-        if pages < 1:
-            problems.append("%s: %s has no page" % (base, pdf))
+    if blank:
+        shutil.copyfile(path, os.path.join(out_dir, base + ".fods"))
+    pages = pdf_pages(os.path.join(out_dir, base + ".pdf"), base, problems)
+    csv = os.path.join(out_dir, base + ".csv")
     csv_rows = 0
     if os.path.isfile(csv):
         with open(csv, encoding="utf-8") as fh:
             csv_rows = sum(1 for _ in fh)
     row = {"sheet": base, "formulas": nform, "addin": naddin, "errors": len(errs),
-           "charts": nchart, "pages": pages, "csv_rows": csv_rows,
+           "charts": nchart, "pages": pages, "csv_rows": csv_rows, "hidden": hidden,
+           "copies": sum(1 for f in files if "-values." in f), "blank": blank,
            "seconds": time.monotonic() - t0, "keys": keys}
     return row, problems
 
@@ -179,10 +243,11 @@ def main():
             if row:
                 rows.append(row)
                 print("[%d/%d] %-22s %s: %d formulas (%d add-in calls), %d error cells, "
-                      "%d charts, PDF %d pages, CSV %d rows, %.1f s" % (
+                      "%d charts, PDF %d pages, CSV %d rows, %s, %.1f s" % (
                           i, len(args.sheets), row["sheet"], status, row["formulas"],
                           row["addin"], row["errors"], row["charts"], row["pages"],
-                          row["csv_rows"], row["seconds"]), flush=True)
+                          row["csv_rows"], "blank template, copied" if row["blank"] else
+                          "%d frozen copies" % row["copies"], row["seconds"]), flush=True)
             else:
                 print("[%d/%d] %-22s FAILED" % (i, len(args.sheets),
                                                 os.path.basename(path)), flush=True)
@@ -194,8 +259,8 @@ def main():
         for p in problems:
             print("  " + p, file=sys.stderr)
         return 1
-    print("\nall %d sample sheets recalculated without error cells; PDFs and CSVs in %s"
-          % (len(rows), args.out))
+    print("\nall %d sample sheets recalculated without error cells; PDFs, CSVs and frozen "
+          "copies (*-values.xlsx, *-values.ods) in %s" % (len(rows), args.out))
     return 0
 
 

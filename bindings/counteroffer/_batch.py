@@ -122,7 +122,7 @@ def parse_chunk(spec: FunctionSpec, rows: List[Tuple[int, List[str]]], width: in
 
 def _invalid_reason(spec: FunctionSpec, args: List[float], row: List[str],
                     col_of: Dict[str, int], options: Options) -> str:
-    from ._reasons import reason
+    from ._reasons import invalid_reason
 
     _st, bad, _o = _core.call(spec.id, args)
     if not 0 <= bad < len(spec.args):
@@ -131,7 +131,7 @@ def _invalid_reason(spec: FunctionSpec, args: List[float], row: List[str],
     name = options.column_of_arg.get(arg.name, arg.name)
     c = col_of.get(name)
     shown = row[c] if c is not None else f"(default {spec.default_double(arg)!r})"
-    return f"column {name} = {shown!r} is invalid ({reason(spec, bad, args[bad])})"
+    return f"column {name} = {shown!r} is invalid ({invalid_reason(spec, bad, args)})"
 
 
 def _implausible(spec: FunctionSpec, args: Sequence[float], options: Options) -> Optional[str]:
@@ -147,14 +147,10 @@ def _implausible(spec: FunctionSpec, args: Sequence[float], options: Options) ->
 
 def _output_cells(spec: FunctionSpec, outs: List[List[float]], i: int, decimal: str) -> List[str]:
     cells = []
-    for name, values in zip(spec.output_names, outs):
-        shown = _present.scalar(name, values[i])
-        if name in _present.OUTPUT_CODES:
-            cells.append(shown or "")
-        elif name in _present.OUTPUT_BOOL:
-            cells.append("" if values[i] != values[i] else str(shown).lower())
-        else:
-            cells.append(format_number(values[i], decimal))
+    for k, values in enumerate(outs):
+        words = spec.words(k)
+        cells.append(_present.cell(words, values[i]) if words
+                     else format_number(values[i], decimal))
     return cells
 
 

@@ -8,7 +8,7 @@ chunk's function carries everything it needs.
 
 from __future__ import annotations
 
-from typing import Any, Dict, List, Sequence, Tuple
+from typing import Any, Dict, List, Sequence
 
 import numpy as np
 
@@ -58,7 +58,8 @@ def evaluate_lazy(spec: FunctionSpec, vals: Sequence[Any]) -> Any:
     # one evaluation for all outputs: a stacked block with the outputs on a new last axis
     stacked = da.map_blocks(chunk, *arrays, dtype=np.float64, new_axis=ndim,
                             chunks=arrays[0].chunks + ((len(names),),))
-    return ArrayResult({n: _present.array(n, stacked[..., k]) for k, n in enumerate(names)})
+    return ArrayResult({n: _present.array(spec.words(k), stacked[..., k])
+                        for k, n in enumerate(names)})
 
 
 def _meta(spec: FunctionSpec) -> Any:
@@ -66,11 +67,8 @@ def _meta(spec: FunctionSpec) -> Any:
 
     if len(spec.outputs) == 1:
         return pd.Series([], dtype=np.float64, name=spec.name)
-    columns: Dict[str, Tuple[str, Any]] = {}
-    for name in spec.output_names:
-        dtype = object if name in _present.OUTPUT_CODES else (
-            bool if name in _present.OUTPUT_BOOL else np.float64)
-        columns[name] = pd.Series([], dtype=dtype)
+    columns: Dict[str, Any] = {name: pd.Series([], dtype=_present.dtype(spec.words(k)))
+                               for k, name in enumerate(spec.output_names)}
     return pd.DataFrame(columns)
 
 

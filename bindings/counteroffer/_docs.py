@@ -80,9 +80,9 @@ def _returns(spec: FunctionSpec) -> List[str]:
         "a frozen result object for scalar input; an ArrayResult (a mapping of arrays,\n"
         ".to_records() for a record array) for arrays; a DataFrame for Series"
     )
-    for name, help_ in spec.outputs:
+    for k, (name, help_) in enumerate(spec.outputs):
         lines.append(_wrap(f"{name}: {help_}."))
-        shown = _present.legend(name)
+        shown = _present.legend(name, spec.words(k))
         if shown:
             lines.append(_wrap(f"Shown in Python as follows: {shown}."))
     return lines

@@ -16,7 +16,7 @@ import numpy as np
 
 from . import _core, _errors, _present
 from ._convert import EXACT_INT, PLAIN, Invalid, convert, fmt, is_dask, is_dask_series
-from ._reasons import reason
+from ._reasons import element, explain, invalid_reason
 from ._results import ArrayResult
 from ._spec import STATUS_NAMES, FunctionSpec, Status
 
@@ -48,24 +48,29 @@ def act(category: str, message: str, action: Optional[str] = None) -> None:
 
 # ---- messages -------------------------------------------------------------------------
 def invalid_message(spec: FunctionSpec, j: int, value: Any, why: Optional[str] = None,
-                    position: Optional[Tuple[int, ...]] = None) -> str:
-    """"<function>: <argument> = <value> is invalid (<why>)"."""
+                    position: Optional[Tuple[int, ...]] = None,
+                    args: Optional[Sequence[float]] = None) -> str:
+    """"<function>: <argument> = <value> is invalid (<why>)": `why` from the conversion,
+    or the library's reason for the element's arguments `args`."""
     if not 0 <= j < len(spec.args):
         return f"{spec.name}: invalid arguments ({_core.status_message(Status.INVALID)})"
     arg = spec.args[j]
-    text = f"{why}; {arg.help}" if why else reason(spec, j, value)
+    if why:
+        text = f"{why}; {arg.help}"
+    elif args is not None:
+        text = invalid_reason(spec, j, args)
+    else:
+        text = arg.help
     where = f" at index {position}" if position else ""
     return f"{spec.name}: {arg.name} = {fmt(value)}{where} is invalid ({text})"
 
 
-def status_text(spec: FunctionSpec, code: int) -> str:
-    """The library's meaning of a status, with what the function's row says about it
-    (e.g. share_from_rates: indeterminate also when days = 0)."""
-    name = STATUS_NAMES.get(code, "")
-    own = [part.strip() for part in spec.statuses.split(";") if name and name in part
-           and part.strip() != name]
-    text = _core.status_message(code)
-    return f"{text} ({spec.name}: {'; '.join(own)})" if own else text
+def status_text(spec: FunctionSpec, code: int, args: Optional[Sequence[float]] = None) -> str:
+    """What a status means: the library's reason for the element's arguments `args`
+    (e.g. share_from_rates with days = 0), or the status's general meaning."""
+    if args is not None:
+        return explain(spec, args)
+    return _core.status_message(code)
 
 
 def _position(flat: int, shape: Tuple[int, ...],
@@ -136,9 +141,10 @@ def evaluate_scalar(spec: FunctionSpec, vals: List[Any], originals: Sequence[Any
     status, bad, outs = _core.call(spec.id, args)
     if status == Status.INVALID:
         value = originals[bad] if 0 <= bad < len(originals) else None
-        raise _errors.InvalidArgumentError(invalid_message(spec, bad, value))
+        raise _errors.InvalidArgumentError(invalid_message(spec, bad, value, args=args))
     if status != Status.OK:
-        act(STATUS_NAMES.get(status, "internal"), f"{spec.name}: {status_text(spec, status)}")
+        act(STATUS_NAMES.get(status, "internal"),
+            f"{spec.name}: {status_text(spec, status, args)}")
     check_plausible(spec, args)
     return outs
 
@@ -168,11 +174,14 @@ def _run(spec: FunctionSpec, vals: Sequence[Any], out: Any) -> Tuple[Any, Any]:
     return res, tally
 
 
-def _first_index(spec: FunctionSpec, vals: Sequence[Any], code: int,
-                 origin: Optional[Tuple[int, ...]]) -> Tuple[int, ...]:
-    """Where the first element with status `code` is (error path only)."""
+def _first(spec: FunctionSpec, vals: Sequence[Any], code: int,
+           origin: Optional[Tuple[int, ...]]) -> Tuple[Tuple[int, ...], Optional[list]]:
+    """Where the first element with status `code` is, counted in the whole array, and
+    its arguments as doubles (error path only)."""
     st = _core.status_ufuncs[spec.name](*vals)[-1]
-    return _position(int(np.argmax(np.ravel(st) == code)), np.shape(st), origin)
+    flat = int(np.argmax(np.ravel(st) == code))
+    local = _position(flat, np.shape(st), None)
+    return _position(flat, np.shape(st), origin), element(vals, np.shape(st), local)
 
 
 def _apply_policy(spec: FunctionSpec, vals: Sequence[Any], tally: Any,
@@ -185,14 +194,16 @@ def _apply_policy(spec: FunctionSpec, vals: Sequence[Any], tally: Any,
         action = policy.get(category, "raise")
         if not counts[code] or action == "ignore":
             continue
+        where, args = _first(spec, vals, code, origin)
+        at = f"(first at index {where}{_label(index, where)})"
         if code == Status.INVALID:
-            where = _first_index(spec, vals, code, origin)
-            msg = (invalid_message(spec, bad, bad_value) + f" in {counts[code]} of {total} "
-                   f"elements (first at index {where}{_label(index, where)})")
+            msg = (invalid_message(spec, bad, bad_value, args=args) +
+                   f" in {counts[code]} of {total} elements {at}")
             if action == "warn":
                 msg += "; those results are NaN"
         else:
-            msg = f"{spec.name}: {counts[code]} of {total} elements: {status_text(spec, code)}"
+            msg = (f"{spec.name}: {counts[code]} of {total} elements {at}: "
+                   f"{status_text(spec, code, args)}")
         act(category, msg, action)
 
 
@@ -215,8 +226,8 @@ def package(spec: FunctionSpec, res: Any, index: Any, out: Any) -> Any:
 
             return pd.Series(res, index=index, name=spec.name)
         return res
-    data = {name: r if out is not None else _present.array(name, r)
-            for name, r in zip(spec.output_names, res)}
+    data = {name: r if out is not None else _present.array(spec.words(k), r)
+            for k, (name, r) in enumerate(zip(spec.output_names, res))}
     if index is not None:
         import pandas as pd  # type: ignore[import-untyped,unused-ignore]
 
@@ -255,4 +266,4 @@ def evaluate(spec: FunctionSpec, fn: Any, values: Tuple[Any, ...], out: Any,
 def _scalar_result(spec: FunctionSpec, outs: Sequence[float], result_cls: Optional[type]) -> Any:
     if result_cls is None:
         return float(outs[0])
-    return result_cls(*(_present.scalar(n, v) for n, v in zip(spec.output_names, outs)))
+    return result_cls(*(_present.scalar(spec.words(k), v) for k, v in enumerate(outs)))

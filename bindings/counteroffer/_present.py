@@ -1,18 +1,18 @@
-"""How Python shows what a double cannot say: absent defaults, coded and 0/1 outputs.
+"""How Python shows what a double cannot say: absent defaults and coded outputs.
 
-Everything here is about presentation, never about what is valid.  The codes are the
-header's constants (``CTO_BINDS_*``, exported by ``_core``); the words are the ones every
-surface uses (Python scalars and arrays, DataFrames, the command line, Calc).
+Everything here is about presentation, never about what is valid.  A coded output's
+words come from the library (``cto_output_word``, in ``FunctionSpec.output_words``):
+solve's ``binding`` is "none", "ours", "theirs" or "both" on every surface (Python
+scalars and arrays, DataFrames, the command line, Calc).  An output whose words are
+"no" and "yes" is a flag, shown in Python as a bool (the command line writes the word).
 """
 
 from __future__ import annotations
 
 import sys
-from typing import Any, Dict, Optional, Tuple
+from typing import Any, Dict, Optional, Sequence, Tuple
 
 import numpy as np
-
-from . import _core
 
 #: Python defaults the table's double cannot express: name -> (Python default, the
 #: double passed to the library for it).  votes_needed=None means a simple majority,
@@ -23,66 +23,74 @@ DEFAULT_OVERRIDES: Dict[str, Dict[str, Tuple[Any, float]]] = {
     "majority_share": {"votes_needed": (None, 0.0)},
 }
 
-#: Coded outputs: name -> {code: word}.  "ours" is own's walk-away value, "theirs" the
-#: other side's.
-OUTPUT_CODES: Dict[str, Dict[int, str]] = {
-    "binding": {
-        _core.BINDS_NONE: "none",
-        _core.BINDS_OWN: "ours",
-        _core.BINDS_OTHER: "theirs",
-        _core.BINDS_BOTH: "both",
-    },
-}
-
-#: Outputs that are 0/1 flags, shown as bool.
-OUTPUT_BOOL = frozenset({"rational"})
+FLAG_WORDS = ("no", "yes")
 
 
-def legend(name: str) -> Optional[str]:
-    """One line on how output `name` is shown, or None for a plain number."""
-    if name in OUTPUT_CODES:
-        words = ", ".join(f"{w!r} ({code})" for code, w in sorted(OUTPUT_CODES[name].items()))
-        return (f"{name} is a word: {words}; None where the model leaves it undefined "
-                "(invalid input, many equilibria)")
-    if name in OUTPUT_BOOL:
+def is_flag(words: Sequence[str]) -> bool:
+    return tuple(words) == FLAG_WORDS
+
+
+def legend(name: str, words: Sequence[str]) -> Optional[str]:
+    """One line on how output `name` is shown in Python, or None for a plain number."""
+    if not words:
+        return None
+    if is_flag(words):
         return f"{name} is a bool (False where the model leaves it undefined)"
-    return None
+    shown = ", ".join(f"{w!r} ({code})" for code, w in enumerate(words))
+    return (f"{name} is a word: {shown}; None where the model leaves it undefined "
+            "(invalid input, many equilibria)")
 
 
-def scalar(name: str, value: float) -> Any:
+def _word(words: Sequence[str], value: float) -> Optional[str]:
+    if value != value or value != int(value) or not 0 <= value < len(words):
+        return None  # NaN: undefined
+    return words[int(value)]
+
+
+def scalar(words: Sequence[str], value: float) -> Any:
     """One output of a scalar call as Python shows it."""
-    if name in OUTPUT_CODES:
-        if value != value or value != int(value):  # NaN: undefined
-            return None
-        return OUTPUT_CODES[name].get(int(value))
-    if name in OUTPUT_BOOL:
+    if not words:
+        return float(value)
+    if is_flag(words):
         return bool(value == 1.0)
-    return float(value)
+    return _word(words, value)
 
 
-def _numpy(name: str, codes: np.ndarray) -> np.ndarray:
-    words = OUTPUT_CODES.get(name)
-    if words is None:
-        return np.asarray(codes == 1.0)
-    n = max(words) + 1
-    table = np.array([words.get(k) for k in range(n)] + [None], dtype=object)
+def cell(words: Sequence[str], value: float) -> str:
+    """A coded output as the command line writes it: its word, empty where undefined."""
+    return _word(words, value) or ""
+
+
+def _numpy(words: Sequence[str], codes: Any) -> np.ndarray:
     codes = np.asarray(codes)
+    if is_flag(words):
+        return np.asarray(codes == 1.0)
+    n = len(words)
+    table = np.array(list(words) + [None], dtype=object)
     ok = (codes >= 0) & (codes < n) & (codes == np.floor(codes))
     index = np.where(ok, np.nan_to_num(codes, nan=n), n).astype(np.intp)
     return table[index]
 
 
-def array(name: str, values: Any) -> Any:
+def array(words: Sequence[str], values: Any) -> Any:
     """One output of an array call as Python shows it: words (an object array, None
-    where undefined) for coded outputs, bool for flags, the values unchanged otherwise.
-    NumPy arrays, dask arrays and xarray DataArrays keep their type."""
-    if name not in OUTPUT_CODES and name not in OUTPUT_BOOL:
+    where undefined) for a coded output, bool for a flag, the values unchanged for a
+    number.  NumPy arrays, dask arrays and xarray DataArrays keep their type."""
+    if not words:
         return values
-    dtype = object if name in OUTPUT_CODES else bool
+    words = tuple(words)
     xr = sys.modules.get("xarray")
     if xr is not None and isinstance(values, xr.DataArray):
-        return values.copy(data=array(name, values.data))
+        return values.copy(data=array(words, values.data))
     da = sys.modules.get("dask.array")
     if da is not None and isinstance(values, da.Array):
-        return values.map_blocks(lambda block: _numpy(name, block), dtype=dtype)
-    return _numpy(name, values)
+        dtype = bool if is_flag(words) else object
+        return values.map_blocks(lambda block: _numpy(words, block), dtype=dtype)
+    return _numpy(words, values)
+
+
+def dtype(words: Sequence[str]) -> Any:
+    """The NumPy dtype an output has in Python arrays."""
+    if not words:
+        return np.float64
+    return bool if is_flag(words) else object

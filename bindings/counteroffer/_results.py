@@ -57,13 +57,14 @@ def result_class(spec: FunctionSpec) -> Optional[type]:
     if len(spec.outputs) < 2:
         return None
     fields: List[Tuple[str, Any]] = []
-    for name, _help in spec.outputs:
-        if name in _present.OUTPUT_CODES:
-            fields.append((name, Optional[str]))
-        elif name in _present.OUTPUT_BOOL:
+    for k, name in enumerate(spec.output_names):
+        words = spec.words(k)
+        if not words:
+            fields.append((name, float))
+        elif _present.is_flag(words):
             fields.append((name, bool))
         else:
-            fields.append((name, float))
+            fields.append((name, Optional[str]))
     cls_name = "".join(p.capitalize() for p in spec.name.split("_")) + "Result"
     doc = f"Result of {spec.name}() for scalar arguments.\n\n" + "\n".join(
         f"{name}: {help_}" for name, help_ in spec.outputs

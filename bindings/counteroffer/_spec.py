@@ -13,7 +13,6 @@ import math
 from typing import Any, Dict, List, Optional, Tuple
 
 from . import _core
-from ._plausible import plausible_range
 from ._present import DEFAULT_OVERRIDES
 
 
@@ -55,7 +54,8 @@ class ArgSpec:
     default: float
     min_count: int
     choices: Tuple[str, ...]
-    #: (low, high): values outside are valid but look like a typo; None: no such range
+    #: (low, high) from cto_arg_plausible_range: values outside are valid but look like a
+    #: typing slip (a rate typed as 8 for 8%); None: the argument has no such range
     plausible: Optional[Tuple[float, float]] = None
 
     @property
@@ -87,6 +87,8 @@ class FunctionSpec:
     outputs: Tuple[Tuple[str, str], ...]
     # Python defaults that the table's double cannot express (see _present.py)
     overrides: Dict[str, Any]
+    #: per output, the words of its codes (cto_output_word), empty for a number
+    output_words: Tuple[Tuple[str, ...], ...] = ()
 
     def default(self, arg: ArgSpec) -> Any:
         """The argument's Python default (as in the signature)."""
@@ -112,10 +114,16 @@ class FunctionSpec:
     def output_names(self) -> List[str]:
         return [name for name, _help in self.outputs]
 
+    def words(self, k: int) -> Tuple[str, ...]:
+        """The words of output k's codes, empty when it is a number."""
+        return self.output_words[k] if k < len(self.output_words) else ()
+
 
 def _arg(fid: int, j: int, a: Dict[str, Any]) -> ArgSpec:
+    found = _core.arg_plausible_range(fid, j)
     return ArgSpec(a["name"], a["label"], a["help"], a["kind"], a["has_default"], a["default"],
-                   a["min_count"], tuple(a["choices"]), plausible_range(fid, j, a["name"]))
+                   a["min_count"], tuple(a["choices"]),
+                   None if found is None else (float(found[0]), float(found[1])))
 
 
 def load_specs() -> List[FunctionSpec]:
@@ -129,6 +137,7 @@ def load_specs() -> List[FunctionSpec]:
                 row["source"], row["statuses"], args,
                 tuple((o["name"], o["help"]) for o in row["outputs"]),
                 dict(DEFAULT_OVERRIDES.get(row["name"], {})),
+                tuple(tuple(o["words"]) for o in row["outputs"]),
             )
         )
     return specs

@@ -182,6 +182,8 @@ py::dict arg_dict(const cto_arg_info &a) {
     return d;
 }
 
+py::list output_words(int id, int k);
+
 py::list catalogue() {
     py::list out;
     const size_t n = cto_function_count();
@@ -204,6 +206,7 @@ py::list catalogue() {
             py::dict o;
             o["name"] = f->outputs[k].name;
             o["help"] = f->outputs[k].help;
+            o["words"] = output_words(f->id, k);
             outs.append(o);
         }
         d["outputs"] = outs;
@@ -230,27 +233,37 @@ py::tuple call(int id, const std::vector<double> &args) {
 
 void tally_reset() { g_tally = Tally{}; }
 
-// The plausible range of an argument (values outside it are valid but look like a
-// typo, e.g. a rate typed as 8 for 8%): the library's cto_arg_plausible_range when the
-// header declares it.  Until then the fallback below is chosen by overload resolution
-// (an exact match beats the ellipsis), so this file builds against either header.
-namespace fallback {
-constexpr int kNoPlausibleRangeInLibrary = -1000;
-inline int cto_arg_plausible_range(...) { return kNoPlausibleRangeInLibrary; }
-}  // namespace fallback
-
-bool library_has_plausible_ranges() {
-    using namespace fallback;
-    double lo = 0.0, hi = 0.0;
-    return cto_arg_plausible_range(0, 0, &lo, &hi) != fallback::kNoPlausibleRangeInLibrary;
-}
-
-// (low, high) for function `id`, argument `j`, or None when it has no plausible range.
+// (low, high) outside which a valid value of argument `j` of function `id` looks like a
+// typing slip (cto_arg_plausible_range), or None when the argument has no such range.
 py::object arg_plausible_range(int id, int j) {
-    using namespace fallback;
     double lo = 0.0, hi = 0.0;
     if (cto_arg_plausible_range(id, j, &lo, &hi) != CTO_OK) return py::none();
     return py::make_tuple(lo, hi);
+}
+
+// The words of a coded output (cto_output_word for codes 0, 1, ... until there is none);
+// empty for an output that is a number.
+py::list output_words(int id, int k) {
+    py::list words;
+    for (int code = 0; code < 64; ++code) {
+        const char *w = cto_output_word(id, k, static_cast<double>(code));
+        if (!w) break;
+        words.append(w);
+    }
+    return words;
+}
+
+// Why function `id` gives what it gives for these arguments (cto_explain): (status, text).
+py::tuple explain(int id, const std::vector<double> &args) {
+    if (id < 0 || static_cast<size_t>(id) >= cto_function_count())
+        throw py::index_error("no catalogue function with id " + std::to_string(id));
+    const cto_function_info *f = cto_function_at(static_cast<size_t>(id));
+    if (static_cast<int>(args.size()) != f->n_args)
+        throw py::type_error(std::string(f->name) + " takes " + std::to_string(f->n_args) +
+                             " arguments, got " + std::to_string(args.size()));
+    std::array<char, 1024> text{};
+    const int st = cto_explain(id, args.data(), text.data(), text.size());
+    return py::make_tuple(st, std::string(text.data()));
 }
 
 py::tuple tally_take() {
@@ -288,10 +301,12 @@ PYBIND11_MODULE(_core, m) {
     m.attr("BINDS_OWN") = CTO_BINDS_OWN;
     m.attr("BINDS_OTHER") = CTO_BINDS_OTHER;
     m.attr("BINDS_BOTH") = CTO_BINDS_BOTH;
-    m.attr("HAS_PLAUSIBLE_RANGES") = library_has_plausible_ranges();
     m.def("arg_plausible_range", &arg_plausible_range, py::arg("id"), py::arg("arg_index"),
-          "(low, high) outside which a valid value looks like a typo, or None "
-          "(cto_arg_plausible_range; None for every argument while the library has none)");
+          "(low, high) outside which a valid value looks like a typing slip, or None "
+          "(cto_arg_plausible_range)");
+    m.def("explain", &explain, py::arg("id"), py::arg("args"),
+          "why a function gives what it gives for every argument, in words: (status, text) "
+          "(cto_explain)");
 
     m.def("version", [] { return std::string(cto_version_string()); },
           "the library's runtime version string");

@@ -17,7 +17,7 @@ import sys
 
 import counteroffer as co
 from counteroffer._errors import CLASSES, geterr
-from counteroffer._present import OUTPUT_BOOL, OUTPUT_CODES
+from counteroffer._present import is_flag
 from counteroffer._spec import Kind
 
 STUB = pathlib.Path(__file__).resolve().parents[1] / "counteroffer" / "__init__.pyi"
@@ -115,10 +115,10 @@ def render() -> str:
         if result is not None:
             chunks.append("@dataclass(frozen=True)")
             chunks.append(f"class {result.__name__}:")
-            for name, _h in spec.outputs:
-                words = ", ".join(repr(w) for _c, w in sorted(OUTPUT_CODES.get(name, {}).items()))
-                t = f"Optional[Literal[{words}]]" if name in OUTPUT_CODES else (
-                    "bool" if name in OUTPUT_BOOL else "float")
+            for k, name in enumerate(spec.output_names):
+                words = spec.words(k)
+                t = "float" if not words else "bool" if is_flag(words) else (
+                    "Optional[Literal[" + ", ".join(map(repr, words)) + "]]")
                 chunks.append(f"    {name}: {t}")
             chunks.append("")
             scalar_ret = result.__name__

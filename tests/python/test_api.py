@@ -2,7 +2,9 @@
 
 Expected values are the published closed forms, evaluated here independently:
 Rubinstein (1982) main theorem, x = S (1 - d2)/(1 - d1 d2) for the opener (Muthoo 1999
-ch.3; REFERENCE.md s.1).
+ch.3; models s.1).
+("models s.N": docs/models/complete-information.md; "the contract":
+docs/reference/functions.md.)
 """
 
 import inspect
@@ -20,7 +22,7 @@ from counteroffer import _core
 
 
 def rubinstein(d1, d2, s=1.0, opens=True):
-    """Rubinstein (1982) main theorem, written here (REFERENCE.md s.1)."""
+    """Rubinstein (1982) main theorem, written here (models s.1)."""
     x = s * (1 - d2) / (1 - d1 * d2)
     return x if opens else s * d1 * (1 - d2) / (1 - d1 * d2)
 
@@ -147,7 +149,7 @@ def test_scalar_invalid_raises_value_error_naming_argument_and_value():
     with pytest.raises(co.InvalidArgumentError, match=r"other_factor = nan"):
         co.share(0.5, float("nan"))
     with pytest.raises(ValueError, match=r"parties = 3\.5 is invalid"):
-        co.group_share(0.9, 3.5)  # CATALOGUE.md: 3.5 parties is an error, not 3
+        co.group_share(0.9, 3.5)  # the contract: 3.5 parties is an error, not 3
     with pytest.raises(ValueError, match=r"utility = 'linear' is invalid"):
         co.risk_averse_share(0.9, 0.9, 0.5, 0.5, utility="linear")
     with pytest.raises(ValueError, match=r"surplus = 'lots' is invalid"):
@@ -185,7 +187,7 @@ def test_array_invalid_warn_and_ignore_give_nan():
 
 
 def test_no_deal_returns_no_deal_payoff_with_own_warning_class():
-    # CATALOGUE.md: no deal returns own's no-deal payoff, never the formula's value
+    # the contract: no deal returns own's no-deal payoff, never the formula's value
     with pytest.warns(co.NoDealWarning):
         assert co.share(0.9, 0.9, surplus=-5.0) == 0.0
     with pytest.warns(co.NoDealWarning, match="1 of 2 elements"):
@@ -197,7 +199,7 @@ def test_no_deal_returns_no_deal_payoff_with_own_warning_class():
 
 
 def test_indeterminate_gives_nan_with_warning():
-    # Both factors 1: every split is an equilibrium (REFERENCE.md s.12)
+    # Both factors 1: every split is an equilibrium (models s.1)
     with pytest.warns(co.IndeterminateWarning):
         assert math.isnan(co.share(1.0, 1.0))
     with co.errstate(indeterminate="raise"), pytest.raises(co.IndeterminateError):
@@ -226,7 +228,7 @@ def test_errstate_nests_restores_and_rejects_bad_settings():
 
 
 def test_solve_scalar_result_object_and_array_mapping():
-    # Outside option principle (Binmore, Shaked & Sutton 1989; REFERENCE.md s.11 row 42):
+    # Outside option principle (Binmore, Shaked & Sutton 1989; check value(s) 42):
     # d = 0.9, w_B = 0.5: A proposing gets 0.5 and B's option binds.
     r = co.solve(0.9, 0.9, other_outside=0.5)
     assert isinstance(r, co.SolveResult)
@@ -245,7 +247,7 @@ def test_solve_scalar_result_object_and_array_mapping():
     rec = arr.to_records()
     assert rec.own_share.shape == (2,)
     with pytest.warns(co.NoDealWarning):
-        nd = co.solve(0.9, 0.9, own_outside=0.6, other_outside=0.5)  # REFERENCE row 83
+        nd = co.solve(0.9, 0.9, own_outside=0.6, other_outside=0.5)  # check value(s) 83
     assert nd.rational is False and nd.own_share == pytest.approx(0.6, abs=1e-15)
 
 

@@ -2,6 +2,8 @@
 
 Expected values: Rubinstein (1982) main theorem, S (1 - d2)/(1 - d1 d2), written here;
 the deals are fictional.
+("models s.N": docs/models/complete-information.md; "the contract":
+docs/reference/functions.md.)
 """
 
 import csv
@@ -65,7 +67,7 @@ def test_broken_csv_reports_each_bad_row_and_drops_nothing():
     assert [r["status"] for r in rows] == ["ok", "invalid", "invalid", "invalid", "invalid",
                                            "no_deal", "indeterminate"]
     assert rows[1]["value"] == "" and rows[0]["value"] != ""
-    assert float(rows[5]["value"]) == 0.0  # own's no-deal payoff (CATALOGUE.md)
+    assert float(rows[5]["value"]) == 0.0  # own's no-deal payoff (the contract)
     lines = err.splitlines()
     assert any(l.startswith("row 2 (line 3): column own_factor = '1.5' is invalid") for l in lines)
     assert any(l.startswith("row 3 (line 4): column own_factor = 'abc' is invalid (not a number")
@@ -85,12 +87,12 @@ def test_solve_columns_and_choices():
     code, out, err = run(["-f", "solve"], text)
     assert code == 0, err
     rows = list(csv.DictReader(io.StringIO(out)))
-    assert float(rows[0]["own_share"]) == pytest.approx(0.5)  # REFERENCE s.11 row 42
+    assert float(rows[0]["own_share"]) == pytest.approx(0.5)  # check value(s) 42
     assert float(rows[1]["own_share"]) == pytest.approx(1 / 1.9)  # no option: row 40
     code, out, err = run(["-f", "majority_share"],
                          "factor,parties,votes_needed,role\n0.9,5,3,partner\n0.9,5,none,PROPOSER\n")
     rows = list(csv.DictReader(io.StringIO(out)))
-    # Baron & Ferejohn (1989): partner d/n, proposer 1 - d (q-1)/n (REFERENCE rows 65-66)
+    # Baron & Ferejohn (1989): partner d/n, proposer 1 - d (q-1)/n (check value(s) 65-66)
     assert float(rows[0]["value"]) == pytest.approx(0.18, rel=1e-15)
     assert float(rows[1]["value"]) == pytest.approx(0.64, rel=1e-15)
 
@@ -184,7 +186,8 @@ def test_binding_and_rational_are_words_as_in_python():
 
     assert [r["binding"] for r in rows[:2]] == ["theirs", "none"]
     assert rows[0]["binding"] == co.solve(0.9, 0.9, other_outside=0.5).binding
-    assert [r["rational"] for r in rows] == ["true", "true", "false"]  # 0.6 + 0.5 > 1
+    # the library's words for the flag (cto_output_word), as in Calc: 0.6 + 0.5 > 1
+    assert [r["rational"] for r in rows] == ["yes", "yes", "no"]
     assert rows[2]["status"] == "no_deal"
 
 

@@ -30,21 +30,25 @@ def test_none_inside_a_list_is_an_absent_option_where_the_scalar_call_allows_it(
     got = co.solve(0.9, 0.9, other_outside=[None, 0.5])
     assert got["binding"].tolist() == [co.solve(0.9, 0.9).binding,
                                        co.solve(0.9, 0.9, other_outside=0.5).binding]
-    np.testing.assert_array_equal(got["own_share"], [co.solve(0.9, 0.9).own_share,
-                                                     co.solve(0.9, 0.9, other_outside=0.5).own_share])
+    want = [co.solve(0.9, 0.9).own_share, co.solve(0.9, 0.9, other_outside=0.5).own_share]
+    np.testing.assert_array_equal(got["own_share"], want)
 
 
 def test_implied_factor_says_no_factor_produces_the_share():
     # 1 - 0.95 = 0.05 is the smallest share own can get by opening (Rubinstein 1982)
+    # the reason is the library's (cto_explain): the share is within 0 to 1, but no
+    # factor produces it with these other arguments
     with pytest.raises(co.InvalidArgumentError,
-                       match=r"^implied_factor: observed_share = 0\.01 is invalid \(unreachable "
-                             r"share: no own per-round factor is consistent with this observed "
-                             r"share and the other arguments"):
+                       match=r"^implied_factor: observed_share = 0\.01 is invalid \(does not "
+                             r"fit the other arguments"):
         co.implied_factor(0.01, 0.95)
+    with pytest.raises(co.InvalidArgumentError, match=r"observed_share = 0\.01 is invalid "
+                                                      r"\(does not fit the other arguments"):
+        co.implied_factor([0.5, 0.01], 0.95)  # the same reason for an array element
     assert co.implied_factor(0.06, 0.95) >= 0.0  # just above the bound: reachable
     # outside 0 to 1 the argument's own domain is the reason
     with pytest.raises(co.InvalidArgumentError, match=r"observed_share = 1\.5 is invalid "
-                                                      r"\(own fraction of the surplus"):
+                                                      r"\(outside 0 to 1"):
         co.implied_factor(1.5, 0.95)
 
 

@@ -1,10 +1,11 @@
 """Every function against references outside the library.
 
-Each check names its source: a published result (with the check value's row in
-REFERENCE.md s.11, the project's table of published and independently computed
-values), mpmath at 50 digits evaluating a published closed form, scipy.optimize
-maximising the Nash product, scipy.optimize.brentq on the stationarity conditions, or
-a backward induction written in this file.
+Each check names its source: a published result (with its "check value" number: the
+row of the 50-digit table of published and independently computed values the models
+were specified with), mpmath at 50 digits evaluating a published closed form,
+scipy.optimize maximising the Nash product, scipy.optimize.brentq on the stationarity
+conditions, or a backward induction written in this file.  "models s.N" is section N of
+docs/models/complete-information.md; "the contract" is docs/reference/functions.md.
 """
 
 import math
@@ -27,7 +28,7 @@ def close(got, want, rtol=2e-15, atol=1e-16):
 
 # ---- backward inductions written here --------------------------------------------
 def bi_finite(dA, dB, S, T, bA=0.0, bB=0.0):
-    """Stahl (1972) finite alternating offers, A proposes in round 1 (REFERENCE s.3):
+    """Stahl (1972) finite alternating offers, A proposes in round 1 (models s.3):
     the last proposer keeps S - b_responder; earlier, the proposer offers the responder
     delta_responder times the responder's next-round proposer payoff."""
     last_A = T % 2 == 1  # A proposes in odd rounds
@@ -75,13 +76,13 @@ def test_share_mpmath(d1, d2):
 def test_share_backward_induction(d1, d2):
     # Rubinstein (1982): the limit of Stahl's finite game, backward induction T = 4001
     close(co.share(d1, d2), bi_finite(d1, d2, 1.0, 4001), rtol=1e-13)
-    # REFERENCE s.11 rows 9 and 14 (d = 0.5 -> 2/3; 0.95/0.9 -> 0.689655172413793)
+    # check value(s) 9 and 14 (d = 0.5 -> 2/3; 0.95/0.9 -> 0.689655172413793)
     close(co.share(0.5, 0.5), mpmath.mpf(2) / 3)
     close(co.share(0.95, 0.9), 0.689655172413793, rtol=1e-14)
 
 
 def test_share_one_patient_party():
-    # REFERENCE s.11 rows 79-81 (one factor 1, and the ultimatum game d = 0)
+    # check value(s) 79-81 (one factor 1, and the ultimatum game d = 0)
     assert co.share(1.0, 0.9) == 1.0
     assert co.share(0.9, 1.0) == 0.0
     assert co.share(0.0, 0.0) == 1.0
@@ -102,14 +103,14 @@ def test_share_from_rates_mpmath(r1, r2, days):
             close(co.share_from_rates(r1, r2, days, own_opens=opens, continuous=cont), want,
                   rtol=4e-15)
     if days == 365.0 and (r1, r2) == (0.10, 0.05):
-        # REFERENCE s.11 row 10 (continuous rates, Delta = 1 year)
+        # check value(s) 10 (continuous rates, Delta = 1 year)
         close(co.share_from_rates(0.10, 0.05, 365, continuous=True), 0.350131861448953,
               rtol=1e-14)
 
 
 def test_limit_share_scipy_nash_product():
     # BRW (1986): as offers become frequent the split maximises x^tau (1-x)^(1-tau),
-    # tau = r2/(r1+r2); REFERENCE s.11 row 12. Maximised here with scipy.optimize.
+    # tau = r2/(r1+r2); check value(s) 12. Maximised here with scipy.optimize.
     for r1, r2 in [(0.10, 0.05), (0.3, 0.3), (0.02, 0.5)]:
         tau = r2 / (r1 + r2)
         res = optimize.minimize_scalar(
@@ -128,7 +129,7 @@ def test_limit_share_scipy_nash_product():
                                            (0.9, 0.8, 0.3, 0.0, 0.25),
                                            (0.99, 0.97, 0.01, -0.1, 0.3)])
 def test_breakdown_share_backward_induction(dA, dB, p, bA, bB):
-    # BRW (1986); Muthoo (1999) ch.4; REFERENCE s.4.2 timing; BI written here
+    # BRW (1986); Muthoo (1999) ch.4; models s.4 timing; BI written here
     x, y = stationary_shares(1.0, dA, dB, p=p, bA=bA, bB=bB)
     close(co.breakdown_share(dA, dB, p, bA, bB), x, rtol=1e-12, atol=1e-14)
     close(co.breakdown_share(dA, dB, p, bA, bB, own_opens=False), 1 - y, rtol=1e-12,
@@ -136,7 +137,7 @@ def test_breakdown_share_backward_induction(dA, dB, p, bA, bB):
 
 
 def test_breakdown_share_published_values():
-    # REFERENCE s.11 rows 33-36 (Muthoo 1999 ch.4; BRW 1986)
+    # check value(s) 33-36 (Muthoo 1999 ch.4; BRW 1986)
     close(co.breakdown_share(1, 1, 0.1, 0.2, 0.1), 0.568421052631579, rtol=1e-14)
     close(1 - co.breakdown_share(1, 1, 0.1, 0.2, 0.1), 0.431578947368421, rtol=1e-14)
     with pytest.warns(co.ImplausibleInputWarning, match="breakdown_prob = 1.0"):
@@ -145,7 +146,7 @@ def test_breakdown_share_published_values():
 
 
 @pytest.mark.parametrize("dA,dB,wA,wB,a_prop,b_prop", [
-    # REFERENCE s.11 rows 40-49: (A proposing, B proposing) shares of the proposer
+    # check value(s) 40-49: (A proposing, B proposing) shares of the proposer
     (0.9, 0.9, 0.0, 0.3, 0.526315789473684, 0.526315789473684),
     (0.9, 0.9, 0.0, 0.5, 0.5, 0.55),
     (0.9, 0.9, 0.5, 0.0, 0.55, 0.5),
@@ -162,7 +163,7 @@ def test_outside_option_share_published_and_bi(dA, dB, wA, wB, a_prop, b_prop):
 
 
 def test_outside_option_no_deal():
-    # REFERENCE s.11 row 83: w_A + w_B > pie -> A gets its option 0.6, no agreement
+    # check value(s) 83: w_A + w_B > pie -> A gets its option 0.6, no agreement
     with pytest.warns(co.NoDealWarning):
         close(co.outside_option_share(0.9, 0.9, 0.6, 0.5), 0.6)
 
@@ -185,7 +186,7 @@ def test_inside_option_share_bi(dA, dB, gA, gB):
     dict(dA=0.5, dB=0.6, p=0.2, bA=0.0, bB=0.1, gA=0.0, gB=0.0, wA=0.4, wB=0.4),
 ])
 def test_solve_backward_induction(case):
-    # CATALOGUE.md 'solve': the combined stationary conditions; BI written here
+    # the contract 'solve': the combined stationary conditions; BI written here
     c = case
     inf = -math.inf
     x, y = stationary_shares(1.0, c["dA"], c["dB"], c["p"], c["bA"], c["bB"], c["gA"],
@@ -200,7 +201,7 @@ def test_solve_backward_induction(case):
 
 
 def test_solve_agrees_with_special_functions():
-    # CATALOGUE.md: each special function is solve with the other features off and
+    # the contract: each special function is solve with the other features off and
     # "must agree with solve to the last digits".
     rng = np.random.default_rng(20261202)
     n = 2000
@@ -228,7 +229,7 @@ def test_solve_agrees_with_special_functions():
 
 # ---- deadline, fixed costs, delay -------------------------------------------------
 @pytest.mark.parametrize("T,dA,dB,bA,bB,want", [
-    # REFERENCE s.11 rows 23-32 (Stahl 1972; closed forms of s.3)
+    # check value(s) 23-32 (Stahl 1972; closed forms of s.3)
     (1, 0.9, 0.9, 0, 0, 1.0), (2, 0.9, 0.9, 0, 0, 0.1), (3, 0.9, 0.9, 0, 0, 0.91),
     (4, 0.9, 0.9, 0, 0, 0.181), (10, 0.9, 0.9, 0, 0, 0.342800821),
     (11, 0.9, 0.9, 0, 0, 0.6914792611), (5, 0.95, 0.9, 0, 0, 0.916525),
@@ -252,12 +253,12 @@ def test_deadline_share_backward_induction(T):
 
 
 def test_deadline_share_long_horizon_is_rubinstein():
-    # REFERENCE s.3: as T -> infinity the shares converge to Rubinstein's
+    # models s.3: as T -> infinity the shares converge to Rubinstein's
     close(co.deadline_share(0.9, 0.95, 2**62), float(rubinstein_mp(0.9, 0.95)), rtol=1e-14)
 
 
 @pytest.mark.parametrize("c1,c2,S,opens,want", [
-    # REFERENCE s.11 rows 15-20 (Rubinstein 1982, fixed-cost case); own = player 1,
+    # check value(s) 15-20 (Rubinstein 1982, fixed-cost case); own = player 1,
     # rows with player 2 proposing give own = pie - player 2's share
     (0.1, 0.2, 1.0, True, 1.0), (0.1, 0.2, 1.0, False, 0.9),
     (0.2, 0.1, 1.0, True, 0.1), (0.2, 0.1, 1.0, False, 0.0),
@@ -268,17 +269,17 @@ def test_fixed_cost_share_published(c1, c2, S, opens, want):
 
 
 def test_delay_cost_mpmath():
-    # REFERENCE s.10: stake - ((1-p) factor stake + p fallback), mpmath at 50 digits
+    # models s.10: stake - ((1-p) factor stake + p fallback), mpmath at 50 digits
     for f, s, p, b in [(0.98, 3e6, 0.05, 1e6), (0.9999999, 1.0, 0.0, 0.0), (0.5, -2.0, 0.3, 4.0)]:
         F, Sm, P, B = map(mpmath.mpf, (f, s, p, b))
         close(co.delay_cost(f, s, p, b), Sm - ((1 - P) * F * Sm + P * B), rtol=1e-14, atol=1e-22)
 
 
 def test_first_mover_advantage_published():
-    # REFERENCE s.11 row 78: r = 0.10, 0.05 per year, monthly offers, pie 1000
+    # check value(s) 78: r = 0.10, 0.05 per year, monthly offers, pie 1000
     d1, d2 = math.exp(-0.10 / 12), math.exp(-0.05 / 12)
     close(co.first_mover_advantage(d1, d2, 1000.0), 2.77776974025657, rtol=1e-12)
-    for a, b in [(0.9, 0.8), (0.5, 0.99), (0.0, 0.3)]:  # REFERENCE s.10 formula, mpmath
+    for a, b in [(0.9, 0.8), (0.5, 0.99), (0.0, 0.3)]:  # models s.10 formula, mpmath
         A, B = mpmath.mpf(a), mpmath.mpf(b)
         close(co.first_mover_advantage(a, b), (1 - A) * (1 - B) / (1 - A * B))
 
@@ -301,7 +302,7 @@ def test_nash_share_scipy_maximisation(bo, bt, tau, S, a, b):
                                    options={"xatol": 1e-13 * S})
     got = co.nash_share(bo, bt, tau, S, a, b)
     assert abs(got - res.x) < 1e-7 * S
-    # and the first-order condition solved with scipy.optimize.brentq (REFERENCE s.7)
+    # and the first-order condition solved with scipy.optimize.brentq (models s.8)
     foc = lambda x: (tau * a * x ** (a - 1) / (x ** a - bo ** a)
                      - (1 - tau) * b * (S - x) ** (b - 1) / ((S - x) ** b - bt ** b))
     root = optimize.brentq(foc, lo + eps, hi - eps, xtol=1e-15, rtol=8.9e-16)
@@ -309,7 +310,7 @@ def test_nash_share_scipy_maximisation(bo, bt, tau, S, a, b):
 
 
 def test_nash_share_published():
-    # REFERENCE s.11 rows 54-57 (Nash 1950; Kalai 1977; Muthoo 1999 ch.2)
+    # check value(s) 54-57 (Nash 1950; Kalai 1977; Muthoo 1999 ch.2)
     close(co.nash_share(0.1, 0.2), 0.45, rtol=1e-15)
     close(co.nash_share(0.1, 0.2, 0.3), 0.31, rtol=1e-15)
     close(co.nash_share(0, 0, 0.5, 1, 0.5, 1), mpmath.mpf(1) / 3, rtol=1e-15)
@@ -350,7 +351,7 @@ def test_risk_averse_exponential_brentq(dA, dB, kA, kB, S):
 
 
 def test_risk_averse_exponential_published_and_breakdown():
-    # REFERENCE s.11 row 59: kA = 2, kB = 0.5, rA = 0.1, rB = 0.05, Delta = 1
+    # check value(s) 59: kA = 2, kB = 0.5, rA = 0.1, rB = 0.05, Delta = 1
     close(co.risk_averse_share(math.exp(-0.1), math.exp(-0.05), 2, 0.5, "exponential"),
           0.324276325976081, rtol=1e-13)
     # with breakdown risk and fallbacks: brentq on the stationarity conditions above
@@ -361,7 +362,7 @@ def test_risk_averse_exponential_published_and_breakdown():
 @pytest.mark.parametrize("d1,d2,a,b", [(0.9, 0.9, 0.5, 1.0), (0.95, 0.8, 0.3, 0.7),
                                        (0.99, 0.999, 1.0, 0.2)])
 def test_risk_averse_power_mpmath(d1, d2, a, b):
-    # REFERENCE s.7 CRRA closed form: Rubinstein with effective factors d^(1/a), mpmath
+    # models s.8 CRRA closed form: Rubinstein with effective factors d^(1/a), mpmath
     e1 = mpmath.mpf(d1) ** (1 / mpmath.mpf(a))
     e2 = mpmath.mpf(d2) ** (1 / mpmath.mpf(b))
     close(co.risk_averse_share(d1, d2, a, b), rubinstein_mp(e1, e2), rtol=1e-14)
@@ -383,14 +384,14 @@ def test_group_share_published_and_mpmath():
 
 
 @pytest.mark.parametrize("d,n,q,prop,partner", [
-    # REFERENCE s.11 rows 65-70 (Baron & Ferejohn 1989, closed rule)
+    # check value(s) 65-70 (Baron & Ferejohn 1989, closed rule)
     (0.9, 5, 3, 0.64, 0.18), (0.95, 101, 51, 0.529702970297030, 0.00940594059405941),
     (0.9, 5, 5, 0.28, 0.18),
 ])
 def test_majority_share_published(d, n, q, prop, partner):
     close(co.majority_share(d, n, q), prop, rtol=1e-14)
     close(co.majority_share(d, n, q, "partner"), partner, rtol=1e-14)
-    if q == n // 2 + 1:  # votes_needed=None is a simple majority (CATALOGUE.md)
+    if q == n // 2 + 1:  # votes_needed=None is a simple majority (the contract)
         close(co.majority_share(d, n), prop, rtol=1e-14)
 
 
@@ -443,6 +444,6 @@ def test_share_sensitivity_mpmath_diff(r1, r2, days):
 # ---- incomplete information ---------------------------------------------------------
 @pytest.mark.parametrize("q,want", [(0.45, 0.5175), (0.8, 0.78), (0.3, 0.5)])
 def test_screening_profit_published(q, want):
-    # REFERENCE s.11 rows 71-73 (Fudenberg & Tirole 1983 setting): vH=1, vL=0.5,
+    # check value(s) 71-73 (Fudenberg & Tirole 1983 setting): vH=1, vL=0.5,
     # ds=0.9, db=0.8; the values are the derived formula's (the grid check is 1e-3)
     close(co.screening_profit(1.0, 0.5, q, 0.9, 0.8), want, rtol=1e-14)

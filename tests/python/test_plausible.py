@@ -1,8 +1,9 @@
 """Valid values that look like typos: a warning of the package's own, configurable like
 the other statuses, the value used as given (issue 14 point 2).
 
-The thresholds are the issue's (common practice, no source): a rate above 1 (100% a
-year), more than 3650 days between offers, a breakdown probability above 0.5 a round.
+The thresholds checked here are the issue's (common practice, no source): a rate above 1
+(100% a year), more than 3650 days between offers, a breakdown probability above 0.5 a
+round; they come from the library (cto_arg_plausible_range).
 Expected values: standard compounding (common practice, no source), written here.
 """
 
@@ -23,11 +24,10 @@ def plausible(name, arg):
     return next(a for a in spec(name).args if a.name == arg).plausible
 
 
-def test_ranges_come_from_the_library_or_the_interim_thresholds():
-    if _core.HAS_PLAUSIBLE_RANGES:  # cto_arg_plausible_range: the one definition
-        for s in co.catalogue:
-            for j, a in enumerate(s.args):
-                assert a.plausible == _core.arg_plausible_range(s.id, j)
+def test_ranges_come_from_the_library():
+    for s in co.catalogue:  # cto_arg_plausible_range: the one definition of each function
+        for j, a in enumerate(s.args):
+            assert a.plausible == _core.arg_plausible_range(s.id, j)
     assert plausible("round_factor", "rate")[1] == 1.0
     assert plausible("share_from_rates", "days")[1] == 3650.0
     assert plausible("breakdown_share", "breakdown_prob")[1] == 0.5

@@ -2,11 +2,13 @@
 monotonicity.
 
 Sources of the properties: NumPy's broadcasting rules (numpy.broadcast_shapes, the
-reference implementation); CATALOGUE.md (solve: own and other shares of a rational deal
+reference implementation); the contract (solve: own and other shares of a rational deal
 add up to the surplus; NaN input is an invalid argument); Rubinstein (1982) main
 theorem (own share rises with own patience and falls with the other side's: the
 closed form S (1 - d2)/(1 - d1 d2) is increasing in d1, decreasing in d2); Baron &
 Ferejohn (1989) (the proposer gets at least a partner's share).
+("models s.N": docs/models/complete-information.md; "the contract":
+docs/reference/functions.md.)
 """
 
 import math
@@ -48,7 +50,7 @@ def test_result_dtype_is_float64(d1, dtype):
 
 @given(hnp.arrays(np.float64, st.integers(1, 30), elements=st.one_of(unit, st.just(math.nan))))
 def test_nan_in_is_invalid_and_gives_nan_out(d1):
-    # CATALOGUE.md: NaN input is an invalid argument; the documented array policy
+    # the contract: NaN input is an invalid argument; the documented array policy
     # with errstate(invalid="ignore") gives NaN out for exactly those elements.
     with co.errstate(invalid="ignore", indeterminate="ignore"):
         got = co.share(d1, 0.5)
@@ -61,7 +63,7 @@ def test_nan_in_is_invalid_and_gives_nan_out(d1):
 @given(open_unit, open_unit, st.floats(0.0, 0.5), st.floats(0, 0.4), st.floats(0, 0.4),
        st.floats(0, 0.3), st.floats(0, 0.3), st.booleans(), money)
 def test_solve_shares_add_up_to_the_surplus(dA, dB, p, bA, bB, gA, gB, opens, S):
-    # CATALOGUE.md 'solve': a rational deal splits the whole surplus
+    # the contract 'solve': a rational deal splits the whole surplus
     with co.errstate(no_deal="ignore"):
         r = co.solve(dA, dB, p, bA * S, bB * S, gA * S, gB * S, surplus=S, own_opens=opens)
     if r.rational:
@@ -96,7 +98,7 @@ def test_majority_proposer_gets_at_least_a_partner(d, n, S):
 
 @given(open_unit, open_unit, money)
 def test_first_mover_advantage_is_the_difference_of_shares(d1, d2, S):
-    # REFERENCE s.10: opener share minus responder share
+    # models s.10: opener share minus responder share
     got = co.first_mover_advantage(d1, d2, S)
     diff = co.share(d1, d2, S, True) - co.share(d1, d2, S, False)
     assert math.isclose(got, diff, rel_tol=1e-12, abs_tol=1e-15 * S)

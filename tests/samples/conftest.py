@@ -15,7 +15,9 @@ sys.path.insert(0, SAMPLES)  # the folder under test: its runner, run_samples.py
 
 from officekit.office import Office  # noqa: E402
 
-SHEETS = sorted(f for f in os.listdir(SAMPLES) if f.endswith(".fods"))
+TEMPLATE = "deal_template.fods"  # the blank template (tests/samples/test_template.py)
+ALL_FILES = sorted(f for f in os.listdir(SAMPLES) if f.endswith(".fods"))
+SHEETS = [f for f in ALL_FILES if f != TEMPLATE]  # the filled sample sheets
 
 
 @pytest.fixture(scope="session")
@@ -27,6 +29,15 @@ def office():
     with Office(profile) as o:
         assert o.has_addin(), "the counteroffer add-in does not answer in " + profile
         yield o
+
+
+@pytest.fixture(scope="session")
+def bare_office():
+    """An office without the add-in (a fresh profile): what a colleague without it has."""
+    with tempfile.TemporaryDirectory(prefix="cto_bare_") as bare:
+        with Office(os.path.join(bare, "profile")) as o:
+            assert not o.has_addin()
+            yield o
 
 
 @pytest.fixture(scope="session")

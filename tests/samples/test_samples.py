@@ -166,11 +166,11 @@ def synergy_expected(c, col):
     return {
         "20": own.own_share, "21": oth.own_share, "22": own.own_share / S,
         "23": co.delay_cost(fo, own.own_share, p, w_o),
-        "24": co.delay_cost(ft, oth.own_share, p, w_t), "25": fma,
-        "27": fo, "28": ft,
-        "29": co.share_from_rates(r_o, r_t, days, S, opens, basis),
-        "30": co.share_sensitivity(r_o, r_t, days, "own", S, opens, basis) / 100,
-        "31": co.share_sensitivity(r_o, r_t, days, "other", S, opens, basis) / 100,
+        "25": co.delay_cost(ft, oth.own_share, p, w_t), "24": fma,
+        "35": fo, "36": ft,
+        "27": co.share_from_rates(r_o, r_t, days, S, opens, basis),
+        "28": co.share_sensitivity(r_o, r_t, days, "own", S, opens, basis) / 100,
+        "29": co.share_sensitivity(r_o, r_t, days, "other", S, opens, basis) / 100,
     }, BIND[own.binding]
 
 
@@ -185,8 +185,8 @@ def test_synergy_equals_python_package(book):
         assert c.s(col + "26") == binding
         shares[c.s(col + "12")] = exp["20"]
     best = max(shares, key=shares.get)
-    assert c.s("B33") == best
-    assert close(c.v("B34"), shares[best])
+    assert c.s("B31") == best
+    assert close(c.v("B32"), shares[best])
 
 
 def test_synergy_independent_references(book):
@@ -200,23 +200,23 @@ def test_synergy_independent_references(book):
     for col in "BCD":
         r_t, days, p = c.v(col + "13"), c.v(col + "14"), c.v(col + "15")
         w_o, w_t = c.v(col + "16"), c.v(col + "17")
-        fo, ft = c.v(col + "27"), c.v(col + "28")
+        fo, ft = c.v(col + "35"), c.v(col + "36")
         x_open, y = stationary_shares(S, fo, ft, p, w_o, w_t, wA=w_o, wB=w_t)
         x_resp = S - y
         assert close(c.v(col + "20"), x_open if opens else x_resp, rel=1e-11)
         assert close(c.v(col + "20") + c.v(col + "21"), S)
-        assert close(c.v(col + "25"), x_open - x_resp, rel=1e-9, absolute=1e-10)
+        assert close(c.v(col + "24"), x_open - x_resp, rel=1e-9, absolute=1e-10)
         if c.s(col + "26") == "neither":
             # the responder is offered exactly the value of waiting (BRW 1986; REFERENCE
             # s.10), so the opener's loss from one round of delay is the first-mover
             # advantage: p (x - w) + (1 - p)(1 - d) x = x - (p w + (1 - p) d x)
-            assert close(c.v(col + "23"), c.v(col + "25"), rel=1e-9)
+            assert close(c.v(col + "23"), c.v(col + "24"), rel=1e-9)
         ref = rubinstein_rates(r_o, r_t, days, S, opens, basis)
-        assert close(c.v(col + "29"), float(ref))
+        assert close(c.v(col + "27"), float(ref))
         h = mp.mpf("1e-20")
         slope = (rubinstein_rates(r_o + h, r_t, days, S, opens, basis)
                  - rubinstein_rates(r_o - h, r_t, days, S, opens, basis)) / (2 * h)
-        assert close(c.v(col + "30"), float(slope) / 100)
+        assert close(c.v(col + "28"), float(slope) / 100)
 
 
 def test_synergy_our_cost_of_capital_edit(book):
@@ -225,12 +225,12 @@ def test_synergy_our_cost_of_capital_edit(book):
     relative at that step), and lowers our share in the full model for every candidate."""
     c = Cells(book("synergy_split.fods"))
     h = 0.0001
-    before = {col: (c.v(col + "29"), c.v(col + "30") * 100, c.v(col + "20"))
+    before = {col: (c.v(col + "27"), c.v(col + "28") * 100, c.v(col + "20"))
               for col in "BCD"}
     c.set("B8", c.v("B8") + h)
     for col in "BCD":
         share0, slope, full0 = before[col]
-        change = c.v(col + "29") - share0
+        change = c.v(col + "27") - share0
         assert change < 0 and slope < 0
         assert abs(change / (slope * h) - 1) < 1e-3, (col, change, slope * h)
         assert c.v(col + "20") < full0
@@ -250,12 +250,12 @@ def test_synergy_best_candidate_moves(book):
     # column of the largest share is the one highlighted
     src = entry.getSourcePosition()
     assert (src.Column, src.Row) == (1, 18) and entry.Formula1.startswith("B$20")
-    assert c.s("B33") != "Norrvik Sensors"
+    assert c.s("B31") != "Norrvik Sensors"
     share0 = c.v("B20")
     c.set("B13", 0.40)
     assert c.v("B20") > share0
-    assert c.s("B33") == "Norrvik Sensors"
-    assert close(c.v("B34"), c.v("B20"))
+    assert c.s("B31") == "Norrvik Sensors"
+    assert close(c.v("B32"), c.v("B20"))
 
 
 # ---- 3. supply contract --------------------------------------------------------------
@@ -291,7 +291,7 @@ def test_supply_equals_python_package(book):
         we_open = co.solve(fo, ft, *args_o, True)
         exp = {"B": we_open.own_share, "C": co.solve(fo, ft, *args_o, False).own_share,
                "D": co.solve(ft, fo, *args_t, False).own_share,
-               "E": co.solve(ft, fo, *args_t, True).own_share, "H": fo, "I": ft}
+               "E": co.solve(ft, fo, *args_t, True).own_share, "I": fo, "J": ft}
         exp["F"] = exp["B"] - exp["C"]
         for col, x in exp.items():
             assert close(c.v("%s%d" % (col, r)), x, absolute=1e-12), (col, r)
@@ -306,7 +306,7 @@ def test_supply_independent_references(book):
     c = Cells(book("supply_renegotiation.fods"))
     i = supply_inputs(c)
     for r in (28, 34, 40):  # 1, 14 and 90 days
-        fo, ft = c.v("H%d" % r), c.v("I%d" % r)
+        fo, ft = c.v("I%d" % r), c.v("J%d" % r)
         x_open, y = stationary_shares(i["S"], fo, ft, gA=i["go"], gB=i["gt"],
                                       wA=i["wo"], wB=i["wt"], rounds=2000000)
         x_resp = i["S"] - y
@@ -358,20 +358,20 @@ def licence_check(c):
     i = licence_inputs(c)
     ao = (1 - i["p"]) * co.round_factor(i["ro"], i["days"], i["basis"])
     at = (1 - i["p"]) * co.round_factor(i["rt"], i["days"], i["basis"])
-    assert close(c.v("B19"), ao) and close(c.v("B20"), at)
+    assert close(c.v("B42"), ao) and close(c.v("B43"), at)
     n = i["n"]
     ours = co.deadline_share(ao, at, n, i["bo"], i["bt"], i["S"], i["opens"])
     theirs = co.deadline_share(at, ao, n, i["bt"], i["bo"], i["S"], not i["opens"])
-    assert close(c.v("B21"), ours) and close(c.v("B22"), theirs)
+    assert close(c.v("B19"), ours) and close(c.v("B20"), theirs)
     bi = backward_induction(n, ao, at, i["bo"], i["bt"], i["S"], i["opens"])
-    assert close(c.v("B21"), bi[0], rel=1e-11) and close(c.v("B22"), bi[1], rel=1e-11)
+    assert close(c.v("B19"), bi[0], rel=1e-11) and close(c.v("B20"), bi[1], rel=1e-11)
     last_is_ours = (n % 2 == 1) == i["opens"]
-    assert c.s("B23") == ("we" if last_is_ours else "they")
+    assert c.s("B21") == ("we" if last_is_ours else "they")
     fo = co.round_factor(i["ro"], i["days"], i["basis"])
     ft = co.round_factor(i["rt"], i["days"], i["basis"])
-    assert close(c.v("B24"), co.breakdown_share(fo, ft, i["p"], 0, 0, i["S"], i["opens"]))
+    assert close(c.v("B22"), co.breakdown_share(fo, ft, i["p"], 0, 0, i["S"], i["opens"]))
     for k in range(1, 13):
-        r = 28 + k
+        r = 26 + k
         if k > n:
             for col in "BCDEFGHIJ":
                 assert c.s("%s%d" % (col, r)) == "", (col, r)
@@ -388,8 +388,8 @@ def licence_check(c):
         pv_o = o * alive * co.round_factor(i["ro"], (k - 1) * i["days"], i["basis"])
         pv_t = t * alive * co.round_factor(i["rt"], (k - 1) * i["days"], i["basis"])
         assert close(c.v("I%d" % r), pv_o) and close(c.v("J%d" % r), pv_t)
-        assert close(c.v("D%d" % r), c.v("I29") - pv_o, absolute=1e-11)
-        assert close(c.v("E%d" % r), c.v("J29") - pv_t, absolute=1e-11)
+        assert close(c.v("D%d" % r), c.v("I27") - pv_o, absolute=1e-11)
+        assert close(c.v("E%d" % r), c.v("J27") - pv_t, absolute=1e-11)
     return i
 
 
@@ -405,13 +405,13 @@ def test_licence_rounds_edit(book):
     row; both match backward induction and the package."""
     c = Cells(book("licence_deadline.fods"))
     n = int(c.v("B11"))
-    assert c.s("B23") == "they"
-    ours = c.v("B21")
+    assert c.s("B21") == "they"
+    ours = c.v("B19")
     c.set("B11", n + 1)
-    assert c.s("B23") == "we"
-    assert c.v("B21") > ours
+    assert c.s("B21") == "we"
+    assert c.v("B19") > ours
     licence_check(c)
-    assert c.s("F%d" % (29 + n)) != ""
+    assert c.s("F%d" % (27 + n)) != ""
 
 
 def test_licence_breakdown_edit(book):
@@ -421,9 +421,9 @@ def test_licence_breakdown_edit(book):
     c = Cells(book("licence_deadline.fods"))
     c.set("B12", 0)
     i = licence_check(c)
-    assert close(c.v("B19"), co.round_factor(i["ro"], i["days"], i["basis"]))
+    assert close(c.v("B42"), co.round_factor(i["ro"], i["days"], i["basis"]))
     ref = rubinstein_rates(i["ro"], i["rt"], i["days"], i["S"], i["opens"], i["basis"])
-    assert close(c.v("B24"), float(ref))
+    assert close(c.v("B22"), float(ref))
 
 
 # ---- 5. without the add-in the formulas survive -----------------------------------------
@@ -464,7 +464,7 @@ def test_error_cell_is_reported(office, tmp_path):
         doc.close(True)
     row, problems = run_samples.process(office, broken, str(tmp_path))
     assert row["errors"] > 0
-    assert any("broken_synergy: Synergy split!C27 shows error 502" in p for p in problems), \
+    assert any("broken_synergy: Synergy split!C35 shows error 502" in p for p in problems), \
         problems
     # the dependent results are errors too, never numbers
     assert any("!C20 shows error" in p for p in problems)

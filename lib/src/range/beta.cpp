@@ -50,6 +50,13 @@ double beta_front(double x, double a, double b, double beta) {
     return std::pow(x, a) * pow_one_minus(x, b) / beta;
 }
 
+// I_x(a, b) for 0 < x < 1; *front receives x^a (1 - x)^b / B(a, b).
+double inc_beta_inner(double x, double a, double b, double beta, double *front) {
+    *front = beta_front(x, a, b, beta);
+    if (x < (a + 1.0) / (a + b + 2.0)) return *front * beta_cf(x, a, b) / a;
+    return 1.0 - *front * beta_cf(1.0 - x, b, a) / b;
+}
+
 // Starting value for the inverse, a, b >= 1 (Numerical Recipes 3rd ed., s.6.4, invbetai;
 // Abramowitz & Stegun 1964, 26.5.22 and 26.2.22).
 double start_value(double u, double a, double b) {
@@ -81,9 +88,8 @@ double beta_sum6(double a) {
 double inc_beta(double x, double a, double b, double beta) {
     if (!(x > 0.0)) return 0.0;
     if (!(x < 1.0)) return 1.0;
-    const double front = beta_front(x, a, b, beta);
-    if (x < (a + 1.0) / (a + b + 2.0)) return front * beta_cf(x, a, b) / a;
-    return 1.0 - front * beta_cf(1.0 - x, b, a) / b;
+    double front;
+    return inc_beta_inner(x, a, b, beta, &front);
 }
 
 double inc_beta_inv(double u, double a, double b, double beta) {
@@ -94,16 +100,18 @@ double inc_beta_inv(double u, double a, double b, double beta) {
     if (b == 1.0) return std::exp(std::log(u) / a);
     double x = start_value(u, a, b), lo = 0.0, hi = 1.0;
     for (int it = 0; it < 100; ++it) {
-        const double f = inc_beta(x, a, b, beta) - u;
+        double front;
+        const double f = inc_beta_inner(x, a, b, beta, &front) - u;
         if (f == 0.0) return x;
         if (f < 0.0) lo = x; else hi = x;
-        // f' = x^(a-1) (1-x)^(b-1) / B;  f''/f' = (a-1)/x - (b-1)/(1-x)
-        const double dens = std::pow(x, a - 1.0) * pow_one_minus(x, b - 1.0) / beta;
-        const double t = f / dens;
+        // f' = x^(a-1) (1-x)^(b-1) / B = front / (x (1 - x));  f''/f' = (a-1)/x - (b-1)/(1-x)
+        const double t = f * (x * (1.0 - x)) / front;
         const double curv = (a - 1.0) / x - (b - 1.0) / (1.0 - x);
         double xn = x - t / (1.0 - 0.5 * std::min(1.0, t * curv));
         if (!(xn > lo && xn < hi)) xn = 0.5 * (lo + hi);
-        if (std::fabs(xn - x) <= 0x1p-53 * xn || hi - lo <= 0x1p-53 * lo) return xn;
+        // Halley's step converges cubically: once a step is below 2^-40 x, the new
+        // iterate is correct to rounding (and further steps only move by an ulp).
+        if (std::fabs(xn - x) <= 0x1p-50 * xn || hi - lo <= 0x1p-52 * hi) return xn;
         x = xn;
     }
     return x;

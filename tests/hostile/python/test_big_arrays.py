@@ -5,7 +5,7 @@ in a fresh subprocess: the inputs and the preallocated output (out=) are made an
 touched first, then one call runs.  A copy of one input would add 800 MB; the
 allowance is 100 MB.  NumPy's own allocations are invisible to tracemalloc's default
 domain, hence RSS.  Expected values: the Rubinstein (1982) closed form,
-(1 - d_oth)/(1 - d_own d_oth) (REFERENCE.md s.1), evaluated with mpmath.
+(1 - d_oth)/(1 - d_own d_oth) (models s.1), evaluated with mpmath.
 """
 import json
 import os

@@ -4,7 +4,7 @@ Inputs: NaN, +-inf, subnormals, huge values, -0.0, integers beyond 2**53, boolea
 None, strings, lists, 0-d and empty arrays, arrays of mismatched shapes, object,
 string, bytes, complex, datetime, float32 and integer arrays.
 
-What must hold (CATALOGUE.md "What every function must do with bad input";
+What must hold (docs/reference/functions.md "Bad input, on each surface";
 bindings/README.md "Errors"):
   * no crash: the call returns or raises a ValueError/TypeError (the package's
     InvalidArgumentError is a ValueError); never an InternalError, SystemError or

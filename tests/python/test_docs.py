@@ -1,0 +1,88 @@
+"""The project explains itself: the generated function contract is current, its C
+prototypes are the header's, and every Markdown link in the project's documents points
+to a file inside the repository (issue 14 point 11).
+
+Source: the files themselves (the header, the documents), read here."""
+
+import re
+import subprocess
+import sys
+
+import pytest
+
+from conftest import ROOT
+
+DOCUMENTS = sorted(
+    {ROOT / "README.md", ROOT / "DEVELOPERS.md", ROOT / "addin" / "README.md",
+     ROOT / "sample-sheets" / "README.md", ROOT / "bindings" / "README.md"}
+    | set((ROOT / "docs").rglob("*.md"))
+    | set((ROOT / "tests").rglob("README.md"))
+)
+INLINE = re.compile(r"!?\[[^\]]*\]\(\s*<?([^)\s>]+)>?(?:\s+\"[^\"]*\")?\s*\)")
+REFERENCE = re.compile(r"^\s*\[[^\]]+\]:\s*(\S+)", re.MULTILINE)
+FENCE = re.compile(r"^(```|~~~).*?^\1", re.MULTILINE | re.DOTALL)
+CODE = re.compile(r"`[^`\n]*`")
+
+
+def links(text):
+    """Link targets of a Markdown text, outside code blocks and code spans."""
+    text = CODE.sub("", FENCE.sub("", text))
+    return INLINE.findall(text) + REFERENCE.findall(text)
+
+
+def broken(path):
+    bad = []
+    for target in links(path.read_text(encoding="utf-8")):
+        if re.match(r"^(https?|mailto):", target) or target.startswith("#"):
+            continue
+        file_part = target.split("#", 1)[0]
+        resolved = (path.parent / file_part).resolve()
+        if ROOT.resolve() not in resolved.parents and resolved != ROOT.resolve():
+            bad.append(f"{target} (outside the repository)")
+        elif not resolved.exists():
+            bad.append(f"{target} (no such file)")
+    return bad
+
+
+def test_the_link_checker_finds_what_it_should(tmp_path):
+    text = ("[ok](docs/index.md) [gone](docs/none.md) `[code](x.md)` "
+            "[web](https://example.org/a.md) [anchor](#top)\n```\n[fenced](y.md)\n```\n"
+            "[ref]: other.md\n")
+    assert links(text) == ["docs/index.md", "docs/none.md", "https://example.org/a.md",
+                           "#top", "other.md"]
+
+
+@pytest.mark.parametrize("path", DOCUMENTS, ids=[str(p.relative_to(ROOT)) for p in DOCUMENTS])
+def test_every_link_points_to_a_file_in_the_repository(path):
+    assert not broken(path), broken(path)
+
+
+def test_the_documents_that_must_exist_do():
+    for name in ("docs/index.md", "docs/reference/functions.md",
+                 "docs/models/complete-information.md"):
+        assert (ROOT / name).is_file(), name
+
+
+def test_the_function_contract_is_current():
+    proc = subprocess.run([sys.executable, str(ROOT / "bindings/tools/gen_contract.py"),
+                           "--check"], capture_output=True, text=True, timeout=120)
+    assert proc.returncode == 0, proc.stderr
+
+
+def test_the_contracts_c_prototypes_are_the_headers():
+    header = " ".join((ROOT / "lib/include/counteroffer/counteroffer.h").read_text().split())
+    header = header.replace("( ", "(").replace(" )", ")")
+    doc = (ROOT / "docs/reference/functions.md").read_text(encoding="utf-8")
+    prototypes = re.findall(r"`int (cto_\w+\([^`]*\))`", doc)
+    assert len(prototypes) >= 15
+    for p in prototypes:
+        assert f"CTO_API int {p};" in header, p
+
+
+def test_python_docs_name_no_file_outside_the_repository():
+    # the design documents beside the repository are not shipped with it
+    for path in [ROOT / "bindings" / "README.md", *(ROOT / "docs").rglob("*.md"),
+                 *(ROOT / "bindings" / "counteroffer").glob("*.py")]:
+        text = path.read_text(encoding="utf-8")
+        for name in ("CATALOGUE.md", "REFERENCE.md", "REFERENCE-PRIVATE.md", "STYLE.md"):
+            assert name not in text, (path, name)
