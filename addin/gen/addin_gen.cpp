@@ -29,8 +29,8 @@
 namespace {
 
 const char *const kService = "org.counteroffer.DealFunctions";
-const char *const kNotice =
-    " Model estimate under stated assumptions; not financial, legal or tax advice.";
+// The caution that results are model estimates, not advice, stands once, in the
+// extension's description (addin/pkg/description-en.txt), not in every function.
 
 // Every method of the interface: one per catalogue function, one "outcome" form
 // for each function with more than one output, and the call-overhead probe.
@@ -121,12 +121,33 @@ std::string default_text(const cto_arg_info &a) {
 }
 
 // The method of catalogue function f, with its arguments' Function Wizard text.
+// "binding (none, ours, theirs or both)": an output and, when it is coded, its words.
+std::string output_legend(const cto_function_info *f, int k) {
+    std::string s = f->outputs[k].name;
+    std::vector<std::string> words;
+    for (double code = 0.0; const char *w = cto_output_word(f->id, k, code); code += 1.0)
+        words.push_back(w);
+    if (words.empty()) return s;
+    s += " (";
+    for (size_t i = 0; i < words.size(); ++i)
+        s += (i == 0 ? "" : i + 1 == words.size() ? " or " : ", ") + words[i];
+    return s + ")";
+}
+
+// What the cell shows: the summary, and the first output when the function has several.
+std::string returns_text(const cto_function_info *f) {
+    std::string s = sentence(f->summary ? f->summary : "") + ".";
+    if (f->n_outputs > 1)
+        s += " Returns " + std::string(f->outputs[0].name) + ": " + f->outputs[0].help +
+             " (the whole outcome: " + f->calc_name + "OUTCOME).";
+    return s;
+}
+
 Method catalogue_method(const cto_function_info *f) {
     Method m;
     m.method = "get" + camel(f->name);
     m.calc = f->calc_name;
-    m.desc = sentence(f->summary ? f->summary : "") + ". Source: " +
-             (f->source ? f->source : "") + "." + kNotice;
+    m.desc = returns_text(f) + " Source: " + (f->source ? f->source : "") + ".";
     m.category = "Financial";
     m.id = f->id;
     m.outcome = false;
@@ -158,12 +179,10 @@ Method outcome_method(const cto_function_info *f, const Method &m) {
     o.method += "Outcome";
     o.calc += "OUTCOME";
     std::string outs;
-    for (int k = 0; k < f->n_outputs; ++k)
-        outs += std::string(k ? ", " : "") + f->outputs[k].name;
+    for (int k = 0; k < f->n_outputs; ++k) outs += std::string(k ? ", " : "") + output_legend(f, k);
     o.desc = sentence(f->summary ? f->summary : "") +
              "; array form, one row per case with the columns " + outs +
-             " (enter as a matrix formula). Source: " + (f->source ? f->source : "") + "." +
-             kNotice;
+             " (enter as a matrix formula). Source: " + (f->source ? f->source : "") + ".";
     o.outcome = true;
     return o;
 }
@@ -200,7 +219,7 @@ Method reason_method() {
                "how (Err:502), why there is no deal (#N/A) or no single answer (#NUM!), a "
                "valid value that looks like a slip (a rate typed as 8 for 8%), or ok. Give "
                "the function's name, then the same arguments. Source: the library's argument "
-               "rules and statuses." + std::string(kNotice);
+               "rules and statuses.";
     why.category = "Financial";
     why.params = {"functionName", "arguments"};
     why.optional = {false, true};

@@ -380,13 +380,24 @@ class DealFunctions
             }
             return css::uno::Any(res);
         }
+        // The outcome form: coded outputs (which walk-away value binds, whether a deal is
+        // rational) as their words from the library; errors stay error values.
         const int nout = f.n_outputs;
-        css::uno::Sequence<css::uno::Sequence<double>> res(static_cast<sal_Int32>(count));
+        std::vector<bool> coded(static_cast<size_t>(nout));
+        for (int k = 0; k < nout; ++k) coded[static_cast<size_t>(k)] = cto_output_word(f.id, k, 0.0);
+        css::uno::Sequence<css::uno::Sequence<css::uno::Any>> res(static_cast<sal_Int32>(count));
         auto *pr = res.getArray();
         for (size_t i = 0; i < count; ++i) {
-            css::uno::Sequence<double> row(nout);
-            double *p = row.getArray();
-            for (int k = 0; k < nout; ++k) p[k] = cell(i, k);
+            css::uno::Sequence<css::uno::Any> row(nout);
+            css::uno::Any *p = row.getArray();
+            for (int k = 0; k < nout; ++k) {
+                const double v = cell(i, k);
+                const char *w = coded[static_cast<size_t>(k)] ? cto_output_word(f.id, k, v) : nullptr;
+                if (w)
+                    p[k] <<= OUString::createFromAscii(w);
+                else
+                    p[k] <<= v;
+            }
             pr[i] = std::move(row);
         }
         return css::uno::Any(res);

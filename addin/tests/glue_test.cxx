@@ -54,6 +54,13 @@ int cto_call(int id, const double *a, double *o, int *bad) {
     }
     return st;
 }
+// Output 1 ("code") is coded: words for 0, 1 and 2; other codes have none.
+const char *cto_output_word(int id, int k, double code) {
+    static const char *const kWords[] = {"zero", "one", "two"};
+    if (id != 0 || k != 1 || !(code >= 0.0 && code <= 2.0) || code != std::floor(code))
+        return nullptr;
+    return kWords[static_cast<int>(code)];
+}
 // The reason: "reason <value> <flag> <pick>" with the status cto_call gives.
 int cto_explain(int id, const double *a, char *text, size_t size) {
     double o[2];
@@ -179,13 +186,19 @@ void check_arrays(const rtl::Reference<DealFunctions> &f) {
                       (want[i] != 0 || m[i][0] == 10.25), what);
         }
     }
-    // Outcome form: every output as a column; no deal keeps the library's values.
+    // Outcome form: every output as a column; no deal keeps the library's values; a coded
+    // output shows its word, an error its code.
     const css::uno::Any ro = f->evaluate(0, args, 4, true);
-    css::uno::Sequence<css::uno::Sequence<double>> mo;
+    css::uno::Sequence<css::uno::Sequence<css::uno::Any>> mo;
     check((ro >>= mo) && mo.getLength() == 7 && mo[0].getLength() == 2, "outcome: 7 x 2");
-    if (mo.getLength() == 7 && mo[2].getLength() == 2)
-        check(mo[2][0] == 10.25 && mo[2][1] == 2.0 && code_of(mo[4][1]) == 523,
-              "outcome: no deal shows values, no convergence its code");
+    if (mo.getLength() == 7 && mo[2].getLength() == 2) {
+        double v0 = 0, v4 = 0;
+        OUString w0, w2;
+        check((mo[2][0] >>= v0) && v0 == 10.25 && (mo[2][1] >>= w2) && w2 == "two",
+              "outcome: no deal shows its values, the code as its word");
+        check((mo[0][1] >>= w0) && w0 == "zero", "outcome: ok shows the code's word");
+        check((mo[4][1] >>= v4) && code_of(v4) == 523, "outcome: no convergence shows its code");
+    }
     // Ranges of different shapes are an invalid argument.
     const Mixed two = column({v, v});
     const Arg bad[] = {Arg(vals), Arg(two), Arg(none), Arg(none)};

@@ -61,9 +61,12 @@ def addin_functions(functions: List[Function]) -> str:
             continue
         rows.append(f"| {f.calc_name} | get{camel(f.name)} | {f.summary} |")
         if len(f.outputs) > 1:
-            outs = "; ".join(f"{o.name}: {o.help}" for o in f.outputs)
+            outs = ", ".join(o.name + (" (" + " / ".join(o.words) + ")" if o.words else "")
+                             for o in f.outputs)
             rows.append(f"| {f.calc_name}OUTCOME | get{camel(f.name)}Outcome | "
-                        f"array of every output, in this order: {outs} |")
+                        f"array, a row per case with the columns {outs} |")
+    rows.append("| DEALREASON | getReason | why a DEAL function gives its result, in words: the "
+                "function's name, then its arguments (see \"Why a cell fails\") |")
     rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "
                 "argument after the usual conversion; has the argument shape of DEALSHARE (two "
                 "required, two optional) and measures call overhead |")
