@@ -145,10 +145,10 @@ def synergy(office, path):
     end = s.notes(38, SYN_NOTES)
     top = end + 1
     s.break_before(top)
-    s.chart("split", ["A19:D21"], "A%d" % top, (13.2, 8.6), "BarDiagram",
+    s.chart("split", ["A19:D21"], "A%d" % top, (13.2, 11.0), "BarDiagram",
             "Split of the synergy by candidate", "Candidate", "EUR m", rows=True)
     s.chart("delay", ["A19:D19", "A23:D23", "A25:D25"], "C%d" % top,
-            (13.2, 8.6), "BarDiagram", "Expected loss if agreement slips one round",
+            (13.2, 11.0), "BarDiagram", "Expected loss if agreement slips one round",
             "Candidate", "EUR m", rows=True)
     s.page()
     s.save(path)
@@ -256,10 +256,10 @@ def supply(office, path):
     end = s.notes(last + 3, SUP_NOTES)
     top = end + 1
     s.break_before(top)
-    s.chart("days", ["A27:C%d" % last], "A%d" % top, (13.2, 8.6), "XYDiagram",
+    s.chart("days", ["A27:C%d" % last], "A%d" % top, (13.2, 11.0), "XYDiagram",
             "Our share against days between offers", "Days between offers", "EUR m",
             headers=(True, False))
-    s.chart("fma", ["A27:A%d" % last, "F27:F%d" % last], "D%d" % top, (13.2, 8.6),
+    s.chart("fma", ["A27:A%d" % last, "F27:F%d" % last], "D%d" % top, (13.2, 11.0),
             "XYDiagram", "First-mover advantage against days between offers",
             "Days between offers", "EUR m", headers=(True, False))
     s.page()
@@ -377,9 +377,9 @@ def licence(office, path):
     top = end + 1
     last = 26 + MAX_ROUNDS
     s.break_before(top)
-    s.chart("position", ["A26:C%d" % last], "A%d" % top, (13.2, 8.6), "LineDiagram",
+    s.chart("position", ["A26:C%d" % last], "A%d" % top, (13.2, 11.0), "LineDiagram",
             "The split if agreement is reached in round k", "Round", "EUR m")
-    s.chart("loss", ["A26:A%d" % last, "D26:E%d" % last], "E%d" % top, (13.2, 8.6),
+    s.chart("loss", ["A26:A%d" % last, "D26:E%d" % last], "E%d" % top, (13.2, 11.0),
             "LineDiagram", "Value lost against rounds of delay (present value)", "Round",
             "EUR m")
     s.page()

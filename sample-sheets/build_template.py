@@ -124,6 +124,7 @@ def template(office, path):
     for nm, a1 in (("blank_template", "A1"), ("key_our_share", "B22"),
                    ("key_their_share", "B23")):
         s.name(nm, a1)
+    s.break_before(30)
     s.notes(34, NOTES)
     s.page()
     s.save(path)

@@ -7,6 +7,7 @@ the add-in's stored names, so a sheet keeps its formulas without the add-in.
 """
 import uno
 from com.sun.star.awt import Rectangle
+from com.sun.star.drawing import LineDash
 from com.sun.star.lang import Locale
 
 import palette as pal
@@ -29,6 +30,7 @@ COLS = "ABCDEFGHIJKLMNOPQRSTUVWXYZ"
 ENUMS = {"HoriJustify": "com.sun.star.table.CellHoriJustify",
          "CharPosture": "com.sun.star.awt.FontSlant"}
 VERT = {"STANDARD": 0, "TOP": 1, "CENTER": 2, "BOTTOM": 3}  # CellVertJustify2
+DASH = LineDash(uno.Enum("com.sun.star.drawing.DashStyle", "RECT"), 0, 0, 1, 250, 150)
 
 
 def col_of(a1):
@@ -281,11 +283,10 @@ class Sheet:
         diag.YAxisTitle.String = ytitle
         if kind == "XYDiagram":
             diag.Lines = True
-        self.plain(ch, lines=kind in ("XYDiagram", "LineDiagram"),
-                   first=1 if kind == "XYDiagram" else 0)
+        self.plain(ch, lines=kind in ("XYDiagram", "LineDiagram"))
         return ch
 
-    def plain(self, ch, lines, first=0):
+    def plain(self, ch, lines):
         """White area, no wall fill, light grid, value axis from zero, palette series."""
         none = uno.Enum("com.sun.star.drawing.FillStyle", "NONE")
         ch.Area.FillStyle = uno.Enum("com.sun.star.drawing.FillStyle", "SOLID")
@@ -300,23 +301,23 @@ class Sheet:
         y.LineColor = pal.RULE
         diag.XAxis.LineColor = pal.RULE
         if diag.HasYAxisGrid:
-            diag.YMainGrid.LineColor = 0xDDE3E8
-        dashes = ("SOLID", "DASH")
-        i = 0
-        while True:
-            try:
-                s = diag.getDataRowProperties(first + i)
-            except Exception:  # IndexOutOfBoundsException: no more series
-                break
+            diag.YMainGrid.LineColor = pal.HEAD
+        series = []
+        for ct in ch.getFirstDiagram().getCoordinateSystems()[0].getChartTypes():
+            series += list(ct.getDataSeries())
+        for i, one in enumerate(series):
             color = pal.SERIES[i % len(pal.SERIES)]
-            s.FillColor = color
-            s.LineColor = color
+            one.Color = color
+            one.FillColor = color
             if lines:
-                s.LineWidth = 60
-                s.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle", dashes[i % 2])
+                one.LineWidth = 60
+                one.LineColor = color
+                one.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle",
+                                         "DASH" if i % 2 else "SOLID")
+                if i % 2:
+                    one.LineDash = DASH
             else:
-                s.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle", "NONE")
-            i += 1
+                one.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle", "NONE")
 
     # ---- page and file ---------------------------------------------------------------
     def break_before(self, row):

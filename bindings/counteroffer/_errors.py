@@ -156,6 +156,11 @@ def _check_action(key: str, action: Any) -> str:
     return str(action)
 
 
+def action(category: str) -> str:
+    """The current action for one category (no copy of the policy: the hot path)."""
+    return _policy.get().get(category, "raise")
+
+
 def geterr() -> Dict[str, str]:
     """The current policy as a dict: category -> "raise" | "warn" | "ignore"."""
     return dict(_policy.get())

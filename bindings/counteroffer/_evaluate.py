@@ -7,6 +7,7 @@ is applied once, after the loop.  Validation and mathematics are the library's.
 
 from __future__ import annotations
 
+import math
 import os
 import sys
 import warnings
@@ -96,36 +97,41 @@ def _implausible_message(spec: FunctionSpec, j: int, value: Any, extra: str = ""
             f"whole number (8 for 8%); the result uses the value as given")
 
 
+def _check_array(spec: FunctionSpec, j: int, v: Any, origin: Optional[Tuple[int, ...]],
+                 index: Any, action: str) -> None:
+    low, high = spec.args[j].plausible  # type: ignore[misc]
+    arr = np.asarray(v)
+    if arr.size == 0 or arr.dtype.kind not in "biuf":
+        return
+    # reductions first: no temporary array unless something is out of range
+    if not (np.fmin.reduce(arr, axis=None) < low or np.fmax.reduce(arr, axis=None) > high):
+        return
+    outside = np.isfinite(arr) & ((arr < low) | (arr > high))
+    n = int(np.count_nonzero(outside))
+    if n:
+        flat = int(np.argmax(outside.ravel()))
+        where = _position(flat, arr.shape, origin)
+        extra = f" in {n} of {arr.size} values (first at index {where}{_label(index, where)})"
+        act("implausible", _implausible_message(spec, j, arr.ravel()[flat], extra), action)
+
+
 def check_plausible(spec: FunctionSpec, vals: Sequence[Any],
                     origin: Optional[Tuple[int, ...]] = None, index: Any = None) -> None:
     """Apply the ``implausible`` policy to values outside their plausible ranges."""
-    action = _errors.geterr().get("implausible", "warn")
+    checked = spec.plausible_args
+    if not checked:
+        return
+    action = _errors.action("implausible")
     if action == "ignore":
         return
-    for j, arg in enumerate(spec.args):
-        if arg.plausible is None:
-            continue
-        low, high = arg.plausible
+    for j in checked:
         v = vals[j]
-        if np.ndim(v) == 0:
-            x = float(v)
-            if np.isfinite(x) and not low <= x <= high:
-                act("implausible", _implausible_message(spec, j, x), action)
+        if type(v) is not float and np.ndim(v) != 0:
+            _check_array(spec, j, v, origin, index, action)
             continue
-        arr = np.asarray(v)
-        if arr.size == 0 or arr.dtype.kind not in "biuf":
-            continue
-        # reductions first: no temporary array unless something is out of range
-        if not (np.fmin.reduce(arr, axis=None) < low or np.fmax.reduce(arr, axis=None) > high):
-            continue
-        outside = np.isfinite(arr) & ((arr < low) | (arr > high))
-        n = int(np.count_nonzero(outside))
-        if n:
-            flat = int(np.argmax(outside.ravel()))
-            where = _position(flat, arr.shape, origin)
-            extra = (f" in {n} of {arr.size} values (first at index {where}"
-                     f"{_label(index, where)})")
-            act("implausible", _implausible_message(spec, j, arr.ravel()[flat], extra), action)
+        low, high = spec.args[j].plausible  # type: ignore[misc]
+        if not low <= v <= high and math.isfinite(v):  # NaN fails the first test too
+            act("implausible", _implausible_message(spec, j, float(v)), action)
 
 
 # ---- scalars ----------------------------------------------------------------------

@@ -9,6 +9,7 @@ numbers them again.
 from __future__ import annotations
 
 import dataclasses
+import functools
 import math
 from typing import Any, Dict, List, Optional, Tuple
 
@@ -109,6 +110,11 @@ class FunctionSpec:
         if arg.kind == Kind.OPTIONAL:
             return -math.inf
         return None
+
+    @functools.cached_property
+    def plausible_args(self) -> Tuple[int, ...]:
+        """Indices of the arguments that have a plausible range."""
+        return tuple(j for j, a in enumerate(self.args) if a.plausible is not None)
 
     @property
     def output_names(self) -> List[str]:

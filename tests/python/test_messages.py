@@ -76,3 +76,19 @@ def test_invalid_element_of_a_series_names_its_label():
     with pytest.raises(co.InvalidArgumentError, match=r"first at index \(1,\), label "
                                                       r"'Garnet line'"):
         co.share(s, 0.9)
+
+
+def test_no_deal_is_explained_where_the_user_meets_it():
+    # Rubinstein (1982) needs a positive surplus; without one no split is rational and
+    # the result is own's no-deal payoff (the contract), which Calc shows as #N/A
+    with pytest.warns(co.NoDealWarning, match=r"no rational deal.*#N/A in Calc.*no-deal "
+                                              r"payoff"):
+        assert co.share(0.9, 0.9, surplus=-5.0) == 0.0
+    with pytest.warns(co.NoDealWarning, match=r"1 of 2 elements \(first at index \(1,\)\): "
+                                              r"no rational deal"):
+        co.share(0.9, 0.9, surplus=[1.0, -5.0])
+    for spec in co.catalogue:
+        doc = " ".join(getattr(co, spec.name).__doc__.split())
+        if "no_deal" in spec.statuses:
+            assert "No deal ------- When the surplus does not exceed" in doc, spec.name
+            assert "#N/A" in doc and "no-deal payoff" in doc, spec.name
