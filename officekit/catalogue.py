@@ -78,3 +78,13 @@ def methods():
     out = {f.calc: f.method for f in functions()}
     out[REASON[0]] = REASON[1]
     return out
+
+
+def plausible_range(name, arg):
+    """(low, high) of the values of argument `arg` of catalogue function `name` that
+    look like what a user means (cto_arg_plausible_range), or None when the argument
+    has no such range."""
+    row = next(f for f in _core.catalogue() if f["name"] == name)
+    index = [a["name"] for a in row["args"]].index(arg)
+    got = _core.arg_plausible_range(row["id"], index)
+    return None if got is None else (float(got[0]), float(got[1]))

@@ -42,9 +42,12 @@ INPUTS = [
 ]
 # The input check's plausibility limits (issue 15): a cost of capital above 1 is above
 # 100 % a year, most likely a percentage typed as a number.
+# The same limits as the library's plausible ranges (cto_arg_plausible_range; a test
+# compares them).
 CHECKS = [
-    ("AND(B9<=1;B10<=1)", "a cost of capital above 100% a year: type 8% or 0.08, not 8"),
-    ("B11<=3650", "days between offers above 3650 (ten years): check the unit"),
+    ("AND(B9<=1.0;B10<=1.0)", "a cost of capital above 100% a year: type 8% or 0.08, "
+     "not 8"),
+    ("B11<=3650.0", "days between offers above 3650 (ten years): check the unit"),
     ("B12<=0.5", "a breakdown risk above 0.5 a round: type 5% or 0.05, not 5"),
 ]
 REASON = ('IF(ISERROR(%s);CHOOSE(MATCH(ERRORTYPE(%s);{32767;502;503;523};0);'

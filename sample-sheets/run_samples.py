@@ -178,6 +178,10 @@ def process(office, path, out_dir, when=None):
         if naddin == 0:
             problems.append("%s: no cell calls the counteroffer add-in" % base)
         keys = key_results(doc)
+        conclusion = ""
+        if doc.NamedRanges.hasByName("conclusion"):
+            conclusion = doc.NamedRanges.getByName("conclusion").ReferredCells \
+                .getCellByPosition(0, 0).getString()
         check = check_text(doc)
         blank = doc.NamedRanges.hasByName("blank_template") and check != OK_TEXT
         if check is None:
@@ -200,7 +204,7 @@ def process(office, path, out_dir, when=None):
     row = {"sheet": base, "formulas": nform, "addin": naddin, "errors": len(errs),
            "charts": nchart, "pages": pages, "csv_rows": csv_rows, "hidden": hidden,
            "copies": sum(1 for f in files if "-values." in f), "blank": blank,
-           "seconds": time.monotonic() - t0, "keys": keys}
+           "seconds": time.monotonic() - t0, "keys": keys, "conclusion": conclusion}
     return row, problems
 
 
@@ -212,10 +216,16 @@ def summary(rows):
     print("-" * len(head))
     for r in rows:
         keys = "; ".join("%s = %s" % kv for kv in r["keys"].items())
+        if r["blank"]:
+            keys = "(blank template: no results until it is filled in)"
         print("%-22s %8d %7d %6d %6d %5d %8d  %s" % (
             r["sheet"], r["formulas"], r["addin"], r["errors"], r["charts"], r["pages"],
             r["csv_rows"], keys))
     print("(money amounts in EUR m, the sheets' unit; key results are the named cells key_*)")
+    print("\nConclusions (model estimates, not financial, legal or tax advice):")
+    for r in rows:
+        if r["conclusion"] and not r["blank"]:
+            print("  %s: %s" % (r["sheet"], r["conclusion"]))
 
 
 def main():

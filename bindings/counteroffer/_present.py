@@ -10,18 +10,20 @@ scalars and arrays, DataFrames, the command line, Calc).  An output whose words 
 from __future__ import annotations
 
 import sys
-from typing import Any, Dict, Optional, Sequence, Tuple
+from typing import Any, FrozenSet, Optional, Sequence
 
 import numpy as np
 
-#: Python defaults the table's double cannot express: name -> (Python default, the
-#: double passed to the library for it).  votes_needed=None means a simple majority,
-#: which the C table encodes as 0.
-# TODO(lib): the one definition marks such defaults ("absent"); read it from the table
-# once cto_arg_info carries it, and drop this entry.
-DEFAULT_OVERRIDES: Dict[str, Dict[str, Tuple[Any, float]]] = {
-    "majority_share": {"votes_needed": (None, 0.0)},
-}
+from ._definitions import definitions
+
+def absent_names(function: str) -> FrozenSet[str]:
+    """Arguments whose default means "absent" beyond what the table's double says, from
+    the function's definition: majority_share's votes_needed = None is a simple majority
+    (the table's default 0).  An optional value's absence (-infinity) needs no entry:
+    its kind says it."""
+    return frozenset(a["name"] for a in definitions().get(function, {}).get("args", [])
+                     if a.get("absent") and a.get("kind") != "optional")
+
 
 FLAG_WORDS = ("no", "yes")
 

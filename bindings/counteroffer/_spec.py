@@ -14,7 +14,7 @@ import math
 from typing import Any, Dict, List, Optional, Tuple
 
 from . import _core
-from ._present import DEFAULT_OVERRIDES
+from ._present import absent_names
 
 
 class Kind:
@@ -86,7 +86,7 @@ class FunctionSpec:
     statuses: str
     args: Tuple[ArgSpec, ...]
     outputs: Tuple[Tuple[str, str], ...]
-    # Python defaults that the table's double cannot express (see _present.py)
+    # defaults that mean "absent" beyond the table's double: name -> (None, the double)
     overrides: Dict[str, Any]
     #: per output, the words of its codes (cto_output_word), empty for a number
     output_words: Tuple[Tuple[str, ...], ...] = ()
@@ -137,12 +137,14 @@ def load_specs() -> List[FunctionSpec]:
     specs = []
     for row in _core.catalogue():
         args = tuple(_arg(row["id"], j, a) for j, a in enumerate(row["args"]))
+        absent = absent_names(row["name"])
+        overrides = {a.name: (None, a.default) for a in args if a.name in absent}
         specs.append(
             FunctionSpec(
                 row["id"], row["name"], row["calc_name"], row["summary"], row["formula"],
                 row["source"], row["statuses"], args,
                 tuple((o["name"], o["help"]) for o in row["outputs"]),
-                dict(DEFAULT_OVERRIDES.get(row["name"], {})),
+                overrides,
                 tuple(tuple(o["words"]) for o in row["outputs"]),
             )
         )

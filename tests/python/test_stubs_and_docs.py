@@ -1,8 +1,9 @@
 """The shipped stubs against the built module (mypy's stubtest), the stub generator's
 output against the shipped stub, py.typed, and the docstring examples (doctest).
 
-The doctest outputs were worked out by hand from each docstring's published formula
-(see counteroffer/_docs.py), so they compare the library with that formula.
+The doctest outputs were worked out by hand from each docstring's published formula;
+they live in each function's definition (lib/functions/<name>.toml, installed with the
+package as definitions.json), so they compare the library with that formula.
 """
 
 import doctest

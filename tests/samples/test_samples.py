@@ -33,7 +33,10 @@ sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), ".."
 from oracles import stationary_shares  # noqa: E402
 
 REL = 1e-12
-BIND = {"none": "neither", "own": "ours", "other": "theirs", "both": "both"}
+# the sheets say "neither" where the library says none (its words for binding were
+# own/other before 1.1, ours/theirs since: cto_output_word)
+BIND = {"none": "neither", "own": "ours", "other": "theirs", "ours": "ours",
+        "theirs": "theirs", "both": "both"}
 
 
 def close(a, b, rel=REL, absolute=1e-12):

@@ -13,11 +13,16 @@ import pytest
 import counteroffer as co
 
 from conftest import SAMPLES, TEMPLATE
+from officekit.catalogue import plausible_range
 
+import build_template
 import run_samples
 
 REL = 1e-12
-BIND = {"none": "neither", "own": "ours", "other": "theirs", "both": "both"}
+# the sheets say "neither" where the library says none (its words for binding were
+# own/other before 1.1, ours/theirs since: cto_output_word)
+BIND = {"none": "neither", "own": "ours", "other": "theirs", "ours": "ours",
+        "theirs": "theirs", "both": "both"}
 EMPTY = "an input cell is empty (Calc would read it as 0)"
 # A fictional deal of our own.
 DEAL = {"B7": "Orrin Castings", "B8": 80.0, "B9": 0.10, "B10": 0.07, "B11": 30.0,
@@ -136,6 +141,22 @@ def test_implausible_input_withdraws_every_result(template, cell, value, message
     for a1 in RESULTS:
         assert t.cell(a1).getString() == "", a1
     assert t.conclusion() == "No conclusion yet: " + message
+
+
+def test_limits_are_the_library_plausible_ranges(template):
+    """The template's limits are the library's plausible ranges (cto_arg_plausible_range,
+    read through the package): a rate up to 1 a year, days up to 3650, a breakdown risk
+    up to 0.5 a round, a day basis from 360 to 366."""
+    rate = plausible_range("share_from_rates", "own_rate")
+    days = plausible_range("share_from_rates", "days")
+    risk = plausible_range("solve", "breakdown_prob")
+    basis = plausible_range("share_from_rates", "basis")
+    conditions = [c for c, _ in build_template.CHECKS]
+    assert conditions[0] == "AND(B9<=%r;B10<=%r)" % (rate[1], rate[1]) == "AND(B9<=1.0;B10<=1.0)"
+    assert conditions[1] == "B11<=%r" % days[1]
+    assert conditions[2] == "B12<=%r" % risk[1]
+    v = template.cell("B18").Validation
+    assert (float(v.Formula1), float(v.Formula2)) == basis
 
 
 def test_no_deal_says_why(template):

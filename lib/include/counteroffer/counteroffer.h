@@ -180,7 +180,10 @@ CTO_API int cto_limit_share(double own_rate, double other_rate, double surplus,
  *  which equals REFERENCE s.4.2's x* and, with d = 1, s.4.1's b_A + S/(2 - p).
  *  own_factor, other_factor in [0, 1]; breakdown_prob p in [0, 1];
  *  own_fallback, other_fallback: money each side gets on breakdown, finite.
- *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= d_own^0 + d_oth^0) -> d_own^0;
+ *  It is cto_solve with no status quo and no walk-away options, and agrees with it
+ *  bit for bit.
+ *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= d_own^0 + d_oth^0: perpetual
+ *          disagreement) -> d_own^0;
  *          CTO_E_INDETERMINATE (p = 0 and both factors 1) -> NaN; CTO_E_INVALID.
  *  Accuracy: relative error < 1e-15 of the share above the no-deal value. */
 CTO_API int cto_breakdown_share(double own_factor, double other_factor,
@@ -196,12 +199,16 @@ CTO_API int cto_breakdown_share(double own_factor, double other_factor,
  *  solved exactly over the four linear regimes (REFERENCE s.5 table).
  *  The option is a constraint, not a threat point (outside option principle).
  *  own_outside, other_outside: money, finite (a negative option never binds).
- *  No deal: when either option is positive, that side would walk away at its first
- *  answer and both would get their options, so a deal is rational when
- *  surplus > w_own + w_oth (even with w_own < 0: own then pays to keep the other in);
- *  when both are <= 0 nobody walks and a deal is rational when surplus > 0.
- *  Status: CTO_OK; CTO_E_NO_DEAL -> w_own (some option positive) or 0;
- *          CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
+ *  No deal and delay follow the game of cto_solve (it is cto_solve with no breakdown
+ *  and no status quo, bit for bit): a side can walk away only when it answers an
+ *  offer, so the opener's first chance is one round on.  The opener either agrees at
+ *  once, lets the responder walk away (own gets w_own when the other walks), or
+ *  refuses for a round, after which the other side agrees, or the opener walks away.
+ *  With both options <= 0 nobody walks and a deal is rational when surplus > 0.
+ *  Status: CTO_OK (agreement at once or one round late) -> own's payoff;
+ *          CTO_E_NO_DEAL -> own's payoff without agreement (w_own, d_own w_own if own
+ *          walks one round on, or 0); CTO_E_INDETERMINATE (both factors 1, unless no
+ *          agreement is reached); CTO_E_INVALID.
  *  Accuracy: relative error < 1e-15. */
 CTO_API int cto_outside_option_share(double own_factor, double other_factor,
                                      double own_outside, double other_outside,
@@ -212,6 +219,7 @@ CTO_API int cto_outside_option_share(double own_factor, double other_factor,
  *  present value over perpetual disagreement is g_i; the opener gets
  *      g_open + (surplus - g_own - g_oth)(1 - d_resp)/(1 - d_own d_oth).
  *  own_inside, other_inside: money (present value of the status quo), finite.
+ *  It is cto_solve with no breakdown and no walk-away options, bit for bit.
  *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= g_own + g_oth) -> g_own;
  *          CTO_E_INDETERMINATE (both factors 1); CTO_E_INVALID.
  *  Accuracy: relative error < 1e-15 of the share above g_own. */
@@ -250,33 +258,90 @@ typedef struct cto_solve_outcome {
     int deal_rational;      /* 1: the surplus exceeds the no-deal payoffs       */
     double own_no_deal;     /* own's no-deal payoff (see cto_solve)             */
     double other_no_deal;   /* other's no-deal payoff                           */
+    /* Appended in 1.x (written when size covers them): */
+    int delayed;            /* 1: the agreement comes one round late             */
+    double own_delay_loss;  /* own's expected loss if the first offer is refused */
+    double other_delay_loss;  /* other's, likewise                               */
+    double opening_advantage; /* own's payoff opening minus responding          */
 } cto_solve_outcome;
 
-/*! cto_solve: the combined model of the catalogue.  With A the opener,
+/*! cto_solve: the combined model of the catalogue.  The game (docs/models/combined.md):
+ *  own and other alternate offers, the opener first.  The responder accepts (when
+ *  indifferent it accepts), walks away if it has a walk-away value w (when walking is
+ *  at least as good as rejecting it walks), or rejects.  After a rejection talks break
+ *  down with chance p (fallbacks b at once); otherwise each side collects a round of
+ *  status-quo income (1 - d) g and the rejecter proposes next round.  When a side walks
+ *  away it gets w and the other gets its own w, or, without one, its value of
+ *  perpetual disagreement d^0 = (p b + (1-p)(1-d) g)/(1 - alpha), alpha = (1-p) d.
+ *  In equilibrium the responder gets max(w, p b + (1-p)((1-d) g + d v)), v its value
+ *  as next proposer; the proposer agrees at once, lets the responder walk away, or
+ *  refuses for a round, whichever pays it most.  With A the opener,
  *      surplus - x = max(w_B, p b_B + (1-p)((1-d_B) g_B + d_B y))
  *      surplus - y = max(w_A, p b_A + (1-p)((1-d_A) g_A + d_A x))
- *  Writing alpha_i = (1-p) d_i and the no-deal value of waiting
- *  d_i^0 = (p b_i + (1-p)(1-d_i) g_i)/(1 - alpha_i), it is the outside-option model
- *  of REFERENCE s.5 on the surplus above (d_A^0, d_B^0) with factors alpha_i and
- *  options w_i - d_i^0, solved exactly over its four linear regimes.
- *  Sources: Rubinstein (1982); BRW (1986); Muthoo (1999) chs.3-6.
- *  No-deal payoffs: when some side's walk-away value exceeds its value of waiting
- *  d_i^0, that side walks away at its first answer and each side with a walk-away
- *  option gets it (a side without one keeps d_i^0); otherwise each gets d_i^0.  A deal is
- *  rational when the surplus exceeds their sum (decided exactly, TwoSum).
- *  One round of delay: the opener can walk away only when answering, one round on;
- *  when its walk-away value exceeds what agreeing now would leave it (possible only
- *  when the other side's poor walk-away value makes the deal rational), it refuses
- *  for a round, and the shares are the present values d_A^0 + alpha_A W_A and
- *  d_B^0 + alpha_B (S' - W_A), which then need not add up to the surplus.
+ *  where both proposers agree (Rubinstein's model on the surplus above (d_A^0, d_B^0)
+ *  with factors alpha and options w - d^0, four linear regimes); the other outcomes
+ *  are solved exactly over the sixteen combinations of the two states' choices.
+ *  Sources: Rubinstein (1982); BRW (1986); Shaked & Sutton (1984); Osborne &
+ *  Rubinstein (1990) ch.3; Muthoo (1999) chs.3-6.
+ *  A side can walk away only when answering, so the opener's first chance is one round
+ *  on, after a possible breakdown, a round of status quo and a round of discounting.
+ *  Rational (deal_rational = 1): an agreement on the equilibrium path, in the first
+ *  round or one round late (delayed = 1: the opener refuses for a round, then the
+ *  other's offer is accepted; the shares are present values and need not add up to
+ *  the surplus).  No deal: the responder walks away at once, the opener walks away one
+ *  round on, or perpetual disagreement; the shares are those payoffs.
+ *  own_no_deal/other_no_deal: on CTO_E_NO_DEAL the shares; on CTO_OK the payoffs of
+ *  the same game with every offer unacceptable (what each gets if no deal can be made).
+ *  binding: which walk-away options bind in equilibrium (the responder is offered
+ *  exactly w), read in both states, so an opener's option can bind.
+ *  own_delay_loss, other_delay_loss: each side's payoff minus its value now of the game
+ *  after the first offer is refused (breakdown with chance p, else a round of status
+ *  quo and discounting, then the other side opens): p b + (1-p)((1-d) g + d v').
+ *  opening_advantage: own's payoff when own opens minus own's payoff when other opens.
  *  Status: CTO_OK -> both shares, the binding option, deal_rational = 1;
  *          CTO_E_NO_DEAL -> shares = no-deal payoffs, deal_rational = 0;
- *          CTO_E_INDETERMINATE (p = 0, both factors 1) -> NaN shares, deal_rational
- *          = 1 (a deal is rational, its split is not determined), binding NONE
- *          (the table entry point reports binding as NaN);
+ *          CTO_E_INDETERMINATE (p = 0, both factors 1, an agreement anywhere) -> NaN
+ *          shares, deal_rational = 1, binding NONE (the table entry point reports
+ *          binding as NaN);
  *          CTO_E_INVALID (bad field, NULL, size too small) -> NaN shares.
+ *  Accuracy: shares within 1e-15 x the largest money amount (checked against 50-digit
+ *  backward induction over the game tree, tests/reference/game_tree); a side's share
+ *  formed as a product (no status quo, fallbacks or options) keeps relative 1e-15.
  *  The outcome is written whenever out != NULL and out->size is large enough. */
 CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out);
+
+/*! Input of cto_solve_rates: cto_solve_input with annual rates and the time between
+ *  offers in place of the two factors.  Set size = sizeof(cto_solve_rates_input). */
+typedef struct cto_solve_rates_input {
+    size_t size;
+    double own_rate;        /* annual rate, fraction per year, >= 0              */
+    double other_rate;      /* annual rate, >= 0                                  */
+    double days;            /* time between offers, days, >= 0                    */
+    double breakdown_prob;  /* chance talks end after each rejection, [0, 1]    */
+    double own_fallback;    /* money to own on breakdown                        */
+    double other_fallback;  /* money to other on breakdown                      */
+    double own_inside;      /* present value of own's status quo                */
+    double other_inside;    /* present value of other's status quo              */
+    double own_outside;     /* own's walk-away value; used when has_own_outside */
+    double other_outside;   /* other's walk-away value                          */
+    int has_own_outside;    /* 0: own has no walk-away option                   */
+    int has_other_outside;  /* 0: other has no walk-away option                 */
+    double surplus;         /* money to split                                   */
+    int own_opens;          /* own makes the first offer                        */
+    double basis;           /* days per year, > 0 (365 by convention)           */
+    int continuous;         /* rates are continuously compounded                */
+} cto_solve_rates_input;
+
+/*! cto_solve_rates (solve_from_rates): cto_solve with per-round factors from rates.
+ *  Factors: rho_i = c(rate_i) days / basis, c(R) = log1p(R) (annual effective) or R
+ *  (continuous); d_i = exp(-rho_i) and 1 - d_i = -expm1(-rho_i), so that offers
+ *  minutes apart keep full accuracy (as cto_share_from_rates).  The model, outcome
+ *  and statuses are those of cto_solve; with the factors cto_round_factor gives it
+ *  agrees with cto_solve to the last digits wherever 1 - d is exact in the factor.
+ *  Sources: as cto_solve; Muthoo (1999) s.3.2 (delta = exp(-r Delta)).
+ *  Status: as cto_solve; CTO_E_INDETERMINATE when p = 0 and rho_own = rho_oth = 0
+ *  (both rates 0, or days = 0) and an agreement is reached somewhere. */
+CTO_API int cto_solve_rates(const cto_solve_rates_input *in, cto_solve_outcome *out);
 
 /*! cto_deadline_share: own share when at most `rounds` offers can be made.
  *  Model (Stahl 1972; Gibbons 1992 s.2.1.D; REFERENCE s.3): proposers alternate,
@@ -297,10 +362,30 @@ CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out);
  *          CTO_E_NO_CONVERGENCE (more than 256 changes between agreeing and
  *          refusing runs, or every value below 2^-1000 so that rounding would decide)
  *          -> NaN; CTO_E_INVALID.
- *  Accuracy: relative error < 1e-15 (plus 1e-16 x rounds x |log q| in q^m). */
+ *  Accuracy: relative error < 1e-15 (plus 1e-16 x rounds x |log q| in q^m); a
+ *  share that is a product (e.g. S (1 - d) in the second-to-last round) keeps its
+ *  relative accuracy however small.  cto_deadline_share_breakdown with
+ *  breakdown_prob = 0 is this function, bit for bit. */
 CTO_API int cto_deadline_share(double own_factor, double other_factor, int64_t rounds,
                                double own_fallback, double other_fallback,
                                double surplus, int own_opens, double *out);
+
+/*! cto_deadline_share_breakdown: cto_deadline_share with a risk of breakdown.
+ *  Model (REFERENCE s.3 with the breakdown timing of s.4.2; BRW 1986; Muthoo 1999
+ *  ch.4): after each rejection talks break down with chance p and each side gets its
+ *  deadline payoff b_i at once; otherwise the next round comes, discounted.  A
+ *  responder's value of rejecting is p b + (1-p) d v = (1 - a) d^0 + a v with
+ *  a = (1-p) d and d^0 = p b / (1 - a); above d^0 this is the deadline model on
+ *  factors a, deadline payoffs b - d^0 and surplus S - d_own^0 - d_oth^0, solved by
+ *  the same induction (1 - a = p + (1-p)(1-d) without cancellation).
+ *  breakdown_prob p in [0, 1] (catalogue argument 7, default 0); the other
+ *  arguments, statuses and accuracy as cto_deadline_share (no deal -> own's payoff
+ *  without agreement, including the breakdown prospects). */
+CTO_API int cto_deadline_share_breakdown(double own_factor, double other_factor,
+                                         int64_t rounds, double own_fallback,
+                                         double other_fallback, double surplus,
+                                         int own_opens, double breakdown_prob,
+                                         double *out);
 
 /*! cto_fixed_cost_share: own share when each round costs a fixed amount.
  *  Model (Rubinstein 1982, fixed-cost case; REFERENCE s.2 generalised table):

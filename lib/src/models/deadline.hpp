@@ -13,6 +13,11 @@ namespace cto::core {
 int deadline_share(double own_factor, double other_factor, int64_t rounds, double own_fallback,
                    double other_fallback, double surplus, bool own_opens, double *out,
                    int *bad);
+// deadline_share with a chance p of breakdown after each rejection (the deadline payoffs
+// paid at once); catalogue index of p: 7.  Equals deadline_share bit for bit at p = 0.
+int deadline_share_breakdown(double own_factor, double other_factor, int64_t rounds,
+                             double own_fallback, double other_fallback, double surplus,
+                             bool own_opens, double p, double *out, int *bad);
 
 }  // namespace cto::core
 

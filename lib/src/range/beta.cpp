@@ -92,6 +92,25 @@ double inc_beta(double x, double a, double b, double beta) {
     return inc_beta_inner(x, a, b, beta, &front);
 }
 
+namespace {
+// Halley's step for I_x(a, b) - u = 0 (Numerical Recipes 3rd ed., s.6.4, invbetai): with
+// f' = x^(a-1) (1-x)^(b-1) / B = front / (x (1 - x)) and f''/f' = (a-1)/x - (b-1)/(1-x).
+// *f receives I_x(a, b) - u; x itself is returned when f = 0.
+double halley(double x, double u, double a, double b, double beta, double *f) {
+    double front;
+    *f = inc_beta_inner(x, a, b, beta, &front) - u;
+    if (*f == 0.0) return x;
+    const double t = *f * (x * (1.0 - x)) / front;
+    const double curv = (a - 1.0) / x - (b - 1.0) / (1.0 - x);
+    return x - t / (1.0 - 0.5 * std::min(1.0, t * curv));
+}
+}  // namespace
+
+double inc_beta_halley_step(double x, double u, double a, double b, double beta) {
+    double f;
+    return halley(x, u, a, b, beta, &f);
+}
+
 double inc_beta_inv(double u, double a, double b, double beta) {
     if (!(u > 0.0)) return 0.0;
     if (!(u < 1.0)) return 1.0;
@@ -100,17 +119,13 @@ double inc_beta_inv(double u, double a, double b, double beta) {
     if (b == 1.0) return std::exp(std::log(u) / a);
     double x = start_value(u, a, b), lo = 0.0, hi = 1.0;
     for (int it = 0; it < 100; ++it) {
-        double front;
-        const double f = inc_beta_inner(x, a, b, beta, &front) - u;
+        double f;
+        double xn = halley(x, u, a, b, beta, &f);
         if (f == 0.0) return x;
         if (f < 0.0) lo = x; else hi = x;
-        // f' = x^(a-1) (1-x)^(b-1) / B = front / (x (1 - x));  f''/f' = (a-1)/x - (b-1)/(1-x)
-        const double t = f * (x * (1.0 - x)) / front;
-        const double curv = (a - 1.0) / x - (b - 1.0) / (1.0 - x);
-        double xn = x - t / (1.0 - 0.5 * std::min(1.0, t * curv));
         if (!(xn > lo && xn < hi)) xn = 0.5 * (lo + hi);
-        // Halley's step converges cubically: once a step is below 2^-40 x, the new
-        // iterate is correct to rounding (and further steps only move by an ulp).
+        // Halley's step converges cubically: once a step is below 2^-50 x, the new
+        // iterate is correct to rounding (further steps only move it by an ulp or so).
         if (std::fabs(xn - x) <= 0x1p-50 * xn || hi - lo <= 0x1p-52 * hi) return xn;
         x = xn;
     }

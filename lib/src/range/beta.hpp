@@ -37,6 +37,10 @@ double inc_beta(double x, double a, double b, double beta);
 // x in [0, 1] with I_x(a, b) = u, for a, b >= 1, u in [0, 1]; `beta` is B(a, b).
 double inc_beta_inv(double u, double a, double b, double beta);
 
+// One Halley step for I_x(a, b) = u from x in (0, 1) (a, b > 1): the refinement that
+// pert_table.cpp applies to its interpolated starting value.
+double inc_beta_halley_step(double x, double u, double a, double b, double beta);
+
 }  // namespace cto::core::range
 
 #endif  // CTO_RANGE_BETA_HPP

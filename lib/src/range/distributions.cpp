@@ -34,8 +34,10 @@ double dist_mode(const Dist &d) {
     return d.mode;
 }
 
-DistPlan dist_plan(const Dist &d) {
-    DistPlan p{d, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0};
+namespace {
+DistPlan plan_without_table(const Dist &d) {
+    DistPlan p{};
+    p.d = d;
     if (d.kind == kFixed) return p;
     p.width = d.high - d.low;
     if (!(p.width > 0.0) || d.kind == kUniform) return p;
@@ -45,6 +47,31 @@ DistPlan dist_plan(const Dist &d) {
         p.alpha = 1.0 + 4.0 * p.fm;
         p.beta = 6.0 - p.alpha;
         p.beta_fn = beta_sum6(p.alpha);
+    }
+    return p;
+}
+
+// The PERT quantile from the plan: tables when built, else the iterative inverse.
+double pert_quantile(const DistPlan &p, double u) {
+    const Dist &d = p.d;
+    if (u <= 0.5) {
+        const double y = p.table ? pert_half_inverse(p.lower, u)
+                                 : inc_beta_inv(u, p.alpha, p.beta, p.beta_fn);
+        return d.low + p.width * y;
+    }
+    const double v = 1.0 - u;  // exact for u >= 1/2
+    const double z = p.table ? pert_half_inverse(p.upper, v)
+                             : inc_beta_inv(v, p.beta, p.alpha, p.beta_fn);
+    return d.high - p.width * z;
+}
+}  // namespace
+
+DistPlan dist_plan(const Dist &d) {
+    DistPlan p = plan_without_table(d);
+    if (d.kind == kPert && p.width > 0.0 && p.alpha > 1.0 && p.beta > 1.0) {
+        pert_half_build(p.alpha, p.beta, p.beta_fn, &p.lower);
+        pert_half_build(p.beta, p.alpha, p.beta_fn, &p.upper);
+        p.table = true;
     }
     return p;
 }
@@ -60,14 +87,13 @@ double dist_quantile(const DistPlan &p, double u) {
             if (u < p.fm) return d.low + p.width * std::sqrt(u * p.fm);
             return d.high - p.width * std::sqrt((1.0 - u) * p.one_minus_fm);
         default:  // kPert
-            if (u <= 0.5) return d.low + p.width * inc_beta_inv(u, p.alpha, p.beta, p.beta_fn);
-            return d.high - p.width * inc_beta_inv(1.0 - u, p.beta, p.alpha, p.beta_fn);
+            return pert_quantile(p, u);
     }
 }
 
 double dist_quantile(const Dist &d, double u) {
     if (!dist_valid(d) || !(u > 0.0 && u < 1.0)) return std::numeric_limits<double>::quiet_NaN();
-    return dist_quantile(dist_plan(d), u);
+    return dist_quantile(plan_without_table(d), u);
 }
 
 }  // namespace cto::core::range

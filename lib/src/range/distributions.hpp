@@ -20,6 +20,8 @@
 #ifndef CTO_RANGE_DISTRIBUTIONS_HPP
 #define CTO_RANGE_DISTRIBUTIONS_HPP
 
+#include "pert_table.hpp"
+
 namespace cto::core::range {
 
 // The kinds of an input (values of RangeArg::kind; proposed as CTO_RANGE_* constants).
@@ -41,16 +43,22 @@ bool dist_uncertain(const Dist &d);
 // fixed input, the mode of triangular and PERT, the midpoint of uniform.
 double dist_mode(const Dist &d);
 
-// F^-1(u) for u in (0, 1); NaN for an invalid distribution or u outside (0, 1).
+// F^-1(u) for u in (0, 1); NaN for an invalid distribution or u outside (0, 1).  PERT by
+// the iterative inverse of beta.hpp (no table): for single values.
 double dist_quantile(const Dist &d, double u);
 
-// Precomputed constants of one distribution, for the inner loop of the engine.
+// Precomputed constants of one distribution, for the inner loop of the engine.  PERT with
+// both shapes above 1 also carries the tables of pert_table.hpp (building them costs about
+// 130 iterative inverses; evaluating then costs one incomplete beta).  The two paths agree
+// to within an ulp or two of the result (tests/cpp/test_range_distributions.cpp).
 struct DistPlan {
     Dist d;
     double width;        // hi - lo
     double fm;           // triangular: (m - lo)/(hi - lo); PERT: unused
     double one_minus_fm; // triangular: (hi - m)/(hi - lo)
     double alpha, beta, beta_fn;  // PERT: shapes and B(alpha, beta)
+    bool table;                   // PERT: the tables below are built
+    PertHalf lower, upper;        // PERT: I^-1(alpha, beta) and I^-1(beta, alpha) on (0, 1/2]
 };
 DistPlan dist_plan(const Dist &d);  // d must be valid
 double dist_quantile(const DistPlan &p, double u);

@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <limits>
+#include <memory>
 #include <new>
 #include <thread>
 #include <vector>
@@ -153,9 +154,10 @@ Estimate replicate_estimate(const Reps &reps, double t, std::vector<double> &tmp
 
 // Fills the estimates for n points per replicate; returns whether the target is met.
 bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
+    std::vector<uint64_t> keys;
     for (ReplicateData &d : reps) {
-        sort_total(d.own.data(), n);
-        sort_total(d.other.data(), n);
+        sort_total(d.own.data(), n, keys);
+        sort_total(d.other.data(), n, keys);
     }
     const double t = t975(static_cast<int>(reps.size()) - 1);
     std::vector<double> tmp(reps.size());
@@ -225,8 +227,10 @@ int run_range(const Model &model, const RangeArg *args, int n_slots, const Range
     clear_range_out(out, opt);
     if (n_slots < 1 || n_slots > kSobolDims) return fail(out, CTO_E_INTERNAL, -1);
     try {
-        Sampler s{};
-        const int bad_arg = build_sampler(model, args, n_slots, opt.seed, &s);
+        // The sampler holds a PERT table per input (a few kB each): on the heap.
+        const std::unique_ptr<Sampler> sp(new Sampler{});
+        const Sampler &s = *sp;
+        const int bad_arg = build_sampler(model, args, n_slots, opt.seed, sp.get());
         if (bad_arg >= 0) return fail(out, CTO_E_INVALID, bad_arg);
         int bad = -1;
         const int st = probe(s, args, &bad);

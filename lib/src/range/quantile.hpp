@@ -18,10 +18,13 @@
 
 #include <cstddef>
 #include <cstdint>
+#include <vector>
 
 namespace cto::core::range {
 
-// Sorts y[0..n) in IEEE totalOrder (no NaN).
+// Sorts y[0..n) in IEEE totalOrder (no NaN); `keys` is working memory (may throw
+// std::bad_alloc; the engine catches it).
+void sort_total(double *y, size_t n, std::vector<uint64_t> &keys);
 void sort_total(double *y, size_t n);
 
 // Definition 7 quantile of sorted y[0..n), n >= 1, p in [0, 1].
