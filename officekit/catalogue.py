@@ -56,6 +56,8 @@ def functions(probe=True):
     """Every Calc function of the add-in, in the add-in's order."""
     out = []
     for row in _core.catalogue():
+        if not row["calc_name"]:  # served in Calc by another function (trade_probability)
+            continue
         args = tuple(_arg(a) for a in row["args"])
         method = "get" + camel(row["name"])
         out.append(Function(row["calc_name"], method, row["name"], args, False))
@@ -67,9 +69,15 @@ def functions(probe=True):
     return out
 
 
+#: The reason function: a function's name, then that function's arguments (varargs).
+REASON = ("DEALREASON", "getReason")
+
+
 def methods():
     """{Calc name: stored method name} for every function of the add-in."""
-    return {f.calc: f.method for f in functions()}
+    out = {f.calc: f.method for f in functions()}
+    out[REASON[0]] = REASON[1]
+    return out
 
 
 def plausible_range(name, arg):

@@ -29,8 +29,8 @@
 namespace {
 
 const char *const kService = "org.counteroffer.DealFunctions";
-const char *const kNotice =
-    " Model estimate under stated assumptions; not financial, legal or tax advice.";
+// The caution that results are model estimates, not advice, stands once, in the
+// extension's description (addin/pkg/description-en.txt), not in every function.
 
 // Every method of the interface: one per catalogue function, one "outcome" form
 // for each function with more than one output, and the call-overhead probe.
@@ -41,8 +41,9 @@ struct Method {
     std::string category;   // Calc programmatic category
     std::vector<std::string> params, labels, helps;
     std::vector<bool> optional; // optional: `any`; required: sequence<sequence<any>>
-    int id;                 // catalogue id, or -1 for the probe
+    int id;                 // catalogue id, or -1 for the probe and the reason function
     bool outcome;           // array of every output
+    bool reason = false;    // DEALREASON: a function name and its arguments (varargs)
 };
 
 std::string camel(const std::string &snake) {
@@ -119,60 +120,80 @@ std::string default_text(const cto_arg_info &a) {
     return s.str();
 }
 
-std::vector<Method> collect() {
-    std::vector<Method> ms;
-    const size_t n = cto_function_count();
-    for (size_t i = 0; i < n; ++i) {
-        const cto_function_info *f = cto_function_at(i);
-        if (!f || !f->name || !f->calc_name) continue;
-        Method m;
-        m.method = "get" + camel(f->name);
-        m.calc = f->calc_name;
-        m.desc = sentence(f->summary ? f->summary : "") + ". Source: " +
-                 (f->source ? f->source : "") + "." + kNotice;
-        m.category = "Financial";
-        m.id = f->id;
-        m.outcome = false;
-        for (int j = 0; j < f->n_args; ++j) {
-            const cto_arg_info &a = f->args[j];
-            // UNO IDL allows no lower-case letter after an underscore: ownFactor.
-            std::string p = camel(a.name);
-            p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
-            if (idl_reserved(p)) p += "Arg";
-            m.params.push_back(p);
-            m.optional.push_back(a.has_default != 0);
-            m.labels.push_back(a.label ? a.label : a.name);
-            std::string h = sentence(a.help ? a.help : "");
-            if (a.has_default) {
-                if (h.find("default") == std::string::npos)
-                    h += " (default " + default_text(a) + ")";
-                h += ". Optional.";
-            } else {
-                h += ". Required.";
-            }
-            m.helps.push_back(h);
+// The method of catalogue function f, with its arguments' Function Wizard text.
+// "binding (none, ours, theirs or both)": an output and, when it is coded, its words.
+std::string output_legend(const cto_function_info *f, int k) {
+    std::string s = f->outputs[k].name;
+    std::vector<std::string> words;
+    for (double code = 0.0; const char *w = cto_output_word(f->id, k, code); code += 1.0)
+        words.push_back(w);
+    if (words.empty()) return s;
+    s += " (";
+    for (size_t i = 0; i < words.size(); ++i)
+        s += (i == 0 ? "" : i + 1 == words.size() ? " or " : ", ") + words[i];
+    return s + ")";
+}
+
+// What the cell shows: the summary, and the first output when the function has several.
+std::string returns_text(const cto_function_info *f) {
+    std::string s = sentence(f->summary ? f->summary : "") + ".";
+    if (f->n_outputs > 1)
+        s += " Returns " + std::string(f->outputs[0].name) + ": " + f->outputs[0].help +
+             " (the whole outcome: " + f->calc_name + "OUTCOME).";
+    return s;
+}
+
+Method catalogue_method(const cto_function_info *f) {
+    Method m;
+    m.method = "get" + camel(f->name);
+    m.calc = f->calc_name;
+    m.desc = returns_text(f) + " Source: " + (f->source ? f->source : "") + ".";
+    m.category = "Financial";
+    m.id = f->id;
+    m.outcome = false;
+    for (int j = 0; j < f->n_args; ++j) {
+        const cto_arg_info &a = f->args[j];
+        // UNO IDL allows no lower-case letter after an underscore: ownFactor.
+        std::string p = camel(a.name);
+        p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
+        if (idl_reserved(p)) p += "Arg";
+        m.params.push_back(p);
+        m.optional.push_back(a.has_default != 0);
+        m.labels.push_back(a.label ? a.label : a.name);
+        std::string h = sentence(a.help ? a.help : "");
+        if (a.has_default) {
+            if (h.find("default") == std::string::npos)
+                h += " (default " + default_text(a) + ")";
+            h += ". Optional.";
+        } else {
+            h += ". Required.";
         }
-        ms.push_back(m);
-        if (f->n_outputs > 1) {
-            Method o = m;
-            o.method += "Outcome";
-            o.calc += "OUTCOME";
-            std::string outs;
-            for (int k = 0; k < f->n_outputs; ++k)
-                outs += std::string(k ? ", " : "") + f->outputs[k].name;
-            o.desc = sentence(f->summary ? f->summary : "") +
-                     "; array form, one row per case with the columns " + outs +
-                     " (enter as a matrix formula). Source: " + (f->source ? f->source : "") +
-                     "." + kNotice;
-            o.outcome = true;
-            ms.push_back(o);
-        }
+        m.helps.push_back(h);
     }
+    return m;
+}
+
+// The array form of a function with several outputs: every output as a column.
+Method outcome_method(const cto_function_info *f, const Method &m) {
+    Method o = m;
+    o.method += "Outcome";
+    o.calc += "OUTCOME";
+    std::string outs;
+    for (int k = 0; k < f->n_outputs; ++k) outs += std::string(k ? ", " : "") + output_legend(f, k);
+    o.desc = sentence(f->summary ? f->summary : "") +
+             "; array form, one row per case with the columns " + outs +
+             " (enter as a matrix formula). Source: " + (f->source ? f->source : "") + ".";
+    o.outcome = true;
+    return o;
+}
+
+// The call-overhead probe, with the argument shape of DEALSHARE (two required, two
+// optional), so that comparing the two measures the add-in's own work and not Calc's
+// cost per parameter.
+Method probe_method() {
     Method probe;
     probe.method = "getCallProbe";
     probe.calc = "DEALCALLPROBE";
-    // The argument shape of DEALSHARE (two required, two optional), so that comparing
-    // the two measures the add-in's own work and not Calc's cost per parameter.
     probe.desc = "Diagnostic: returns its first argument after the same argument "
                  "conversion as every DEAL function, with the argument shape of DEALSHARE; "
                  "measures the cost of an add-in call.";
@@ -186,7 +207,45 @@ std::vector<Method> collect() {
                    "Any number; converted and ignored (default 1). Optional."};
     probe.id = -1;
     probe.outcome = false;
-    ms.push_back(probe);
+    return probe;
+}
+
+// DEALREASON: a function's name, then its arguments (varargs).
+Method reason_method() {
+    Method why;
+    why.method = "getReason";
+    why.calc = "DEALREASON";
+    why.desc = "Why a DEAL function gives its result, in words: which argument is wrong and "
+               "how (Err:502), why there is no deal (#N/A) or no single answer (#NUM!), a "
+               "valid value that looks like a slip (a rate typed as 8 for 8%), or ok. Give "
+               "the function's name, then the same arguments. Source: the library's argument "
+               "rules and statuses.";
+    why.category = "Financial";
+    why.params = {"functionName", "arguments"};
+    why.optional = {false, true};
+    why.labels = {"Function", "Arguments"};
+    why.helps = {"Name of a DEAL function as text, e.g. \"DEALSOLVE\". Required.",
+                 "The arguments of that function, in its order; left out: its defaults. "
+                 "Optional."};
+    why.id = -1;
+    why.outcome = false;
+    why.reason = true;
+    return why;
+}
+
+std::vector<Method> collect() {
+    std::vector<Method> ms;
+    const size_t n = cto_function_count();
+    for (size_t i = 0; i < n; ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        // A function without a Calc name of its own (its Calc form is another function's,
+        // e.g. trade_probability is DEALTRADE, the first output of double_auction).
+        if (!f || !f->name || !f->calc_name || !*f->calc_name) continue;
+        ms.push_back(catalogue_method(f));
+        if (f->n_outputs > 1) ms.push_back(outcome_method(f, ms.back()));
+    }
+    ms.push_back(probe_method());
+    ms.push_back(reason_method());
     return ms;
 }
 
@@ -198,6 +257,12 @@ std::string make_idl(const std::vector<Method> &ms) {
          "module org { module counteroffer {\n"
          "interface XDealFunctions : com::sun::star::uno::XInterface\n{\n";
     for (const Method &m : ms) {
+        if (m.reason) {
+            s << "    any " << m.method << "([in] string " << m.params[0]
+              << ", [in] sequence< any > " << m.params[1] << ")\n"
+              << "        raises(com::sun::star::lang::IllegalArgumentException);\n";
+            continue;
+        }
         s << "    any " << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
             s << (j ? ", " : "") << "[in] " << (m.optional[j] ? "any " : "sequence< sequence< any > > ")
@@ -245,6 +310,11 @@ std::string make_decl(const std::vector<Method> &ms) {
     std::ostringstream s;
     s << "// Generated by addin_gen. Do not edit.\n";
     for (const Method &m : ms) {
+        if (m.reason) {
+            s << "css::uno::Any SAL_CALL " << m.method
+              << "(const OUString &a0, const css::uno::Sequence<css::uno::Any> &a1) override;\n";
+            continue;
+        }
         s << "css::uno::Any SAL_CALL " << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
             s << (j ? ", " : "") << (m.optional[j] ? "const css::uno::Any &a" : "const Mixed &a") << j;
@@ -257,6 +327,12 @@ std::string make_def(const std::vector<Method> &ms) {
     std::ostringstream s;
     s << "// Generated by addin_gen. Do not edit.\n";
     for (const Method &m : ms) {
+        if (m.reason) {
+            s << "css::uno::Any SAL_CALL DealFunctions::" << m.method
+              << "(const OUString &a0, const css::uno::Sequence<css::uno::Any> &a1)\n{\n"
+              << "    return reason(a0, a1);\n}\n";
+            continue;
+        }
         s << "css::uno::Any SAL_CALL DealFunctions::" << m.method << "(";
         for (size_t j = 0; j < m.params.size(); ++j)
             s << (j ? ", " : "") << (m.optional[j] ? "const css::uno::Any &a" : "const Mixed &a") << j;

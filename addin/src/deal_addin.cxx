@@ -283,16 +283,14 @@ class DealFunctions
         }
     }
 
-    // Ranges in, array out.  Every range argument must have the same shape; a
-    // single value (or a 1x1 range) applies to every element.  The plain form
-    // returns the first output in that shape; the outcome form returns one row per
-    // element (row-major) with every output as a column.
-    css::uno::Any evaluate_array(const cto_function_info &f, const View *views, bool outcome) {
-        const int n = f.n_args;
-        sal_Int32 rows = 1, cols = 1;
-        for (int j = 0; j < n; ++j) {
+    // The common shape of the range arguments (a single value or 1x1 range broadcasts);
+    // ranges of different shapes are an invalid argument.
+    void array_shape(const cto_function_info &f, const View *views, sal_Int32 &rows,
+                     sal_Int32 &cols) const {
+        rows = cols = 1;
+        for (int j = 0; j < f.n_args; ++j) {
             const View &v = views[j];
-            if (v.rows == 1 && v.cols == 1) continue; // broadcast like a scalar
+            if (v.rows == 1 && v.cols == 1) continue;
             if (rows == 1 && cols == 1) {
                 rows = v.rows;
                 cols = v.cols;
@@ -303,6 +301,17 @@ class DealFunctions
                     css::uno::Reference<css::uno::XInterface>(), static_cast<sal_Int16>(j));
             }
         }
+    }
+
+    // Every element's outputs and status through cto_call_strided: each range argument
+    // as a column of doubles (row-major), a single value with stride 0.
+    struct Columns {
+        std::vector<std::vector<double>> outs;
+        std::vector<signed char> status;
+    };
+    Columns strided_call(const cto_function_info &f, const View *views, sal_Int32 rows,
+                         sal_Int32 cols) {
+        const int n = f.n_args;
         const size_t count = static_cast<size_t>(rows) * static_cast<size_t>(cols);
         std::vector<std::vector<double>> cols_in(static_cast<size_t>(n));
         std::vector<const char *> arg_ptr(static_cast<size_t>(n));
@@ -325,27 +334,36 @@ class DealFunctions
             }
             arg_ptr[uj] = reinterpret_cast<const char *>(c.data());
         }
-        const int nout = outcome ? f.n_outputs : 1;
-        std::vector<std::vector<double>> outs(static_cast<size_t>(f.n_outputs),
-                                              std::vector<double>(count));
+        Columns res;
+        res.outs.assign(static_cast<size_t>(f.n_outputs), std::vector<double>(count));
+        res.status.resize(count);
         std::vector<char *> out_ptr(static_cast<size_t>(f.n_outputs));
         std::vector<ptrdiff_t> out_stride(static_cast<size_t>(f.n_outputs),
                                           static_cast<ptrdiff_t>(sizeof(double)));
-        for (size_t k = 0; k < outs.size(); ++k)
-            out_ptr[k] = reinterpret_cast<char *>(outs[k].data());
-        std::vector<signed char> status(count);
+        for (size_t k = 0; k < res.outs.size(); ++k)
+            out_ptr[k] = reinterpret_cast<char *>(res.outs[k].data());
         cto_batch_report report;
         std::memset(&report, 0, sizeof report);
         report.size = sizeof report;
-        const int st = cto_call_strided(f.id, count, arg_ptr.data(), arg_stride.data(),
-                                        out_ptr.data(), out_stride.data(), status.data(), 1,
-                                        &report);
-        if (st != CTO_OK)
+        if (cto_call_strided(f.id, count, arg_ptr.data(), arg_stride.data(), out_ptr.data(),
+                             out_stride.data(), res.status.data(), 1, &report) != CTO_OK)
             throw css::uno::RuntimeException(OUString::createFromAscii(f.calc_name) +
                                              ": the strided call was refused");
+        return res;
+    }
+
+    // Ranges in, array out.  Every range argument must have the same shape; a
+    // single value (or a 1x1 range) applies to every element.  The plain form
+    // returns the first output in that shape; the outcome form returns one row per
+    // element (row-major) with every output as a column.
+    css::uno::Any evaluate_array(const cto_function_info &f, const View *views, bool outcome) {
+        sal_Int32 rows = 1, cols = 1;
+        array_shape(f, views, rows, cols);
+        const Columns c = strided_call(f, views, rows, cols);
+        const size_t count = c.status.size();
         auto cell = [&](size_t i, int k) -> double {
-            const int s = status[i];
-            const double v = outs[static_cast<size_t>(k)][i];
+            const int s = c.status[i];
+            const double v = c.outs[static_cast<size_t>(k)][i];
             if (s == CTO_OK || (outcome && s == CTO_E_NO_DEAL))
                 return std::isfinite(v) ? v : error_nan(kErrNoValue);
             return error_nan(status_error(s));
@@ -362,18 +380,78 @@ class DealFunctions
             }
             return css::uno::Any(res);
         }
-        css::uno::Sequence<css::uno::Sequence<double>> res(static_cast<sal_Int32>(count));
+        // The outcome form: coded outputs (which walk-away value binds, whether a deal is
+        // rational) as their words from the library; errors stay error values.
+        const int nout = f.n_outputs;
+        std::vector<bool> coded(static_cast<size_t>(nout));
+        for (int k = 0; k < nout; ++k) coded[static_cast<size_t>(k)] = cto_output_word(f.id, k, 0.0);
+        css::uno::Sequence<css::uno::Sequence<css::uno::Any>> res(static_cast<sal_Int32>(count));
         auto *pr = res.getArray();
         for (size_t i = 0; i < count; ++i) {
-            css::uno::Sequence<double> row(nout);
-            double *p = row.getArray();
-            for (int k = 0; k < nout; ++k) p[k] = cell(i, k);
+            css::uno::Sequence<css::uno::Any> row(nout);
+            css::uno::Any *p = row.getArray();
+            for (int k = 0; k < nout; ++k) {
+                const double v = cell(i, k);
+                const char *w = coded[static_cast<size_t>(k)] ? cto_output_word(f.id, k, v) : nullptr;
+                if (w)
+                    p[k] <<= OUString::createFromAscii(w);
+                else
+                    p[k] <<= v;
+            }
             pr[i] = std::move(row);
         }
         return css::uno::Any(res);
     }
 
+    // The catalogue function called `name` (its Calc name, its outcome form's, or its
+    // catalogue name; any case), or nullptr.
+    const cto_function_info *find(const OUString &name) const {
+        const OUString n = name.trim();
+        if (n.isEmpty()) return nullptr;
+        for (const cto_function_info *f : table_) {
+            if (!f) continue;
+            if ((*f->calc_name && n.equalsIgnoreAsciiCaseAscii(f->calc_name)) ||
+                n.equalsIgnoreAsciiCaseAscii(f->name) ||
+                n.equalsIgnoreAsciiCase(OUString::createFromAscii(f->calc_name) + "OUTCOME"))
+                return f;
+        }
+        return nullptr;
+    }
+
   public:
+    // DEALREASON: the library's reason (cto_explain) as text, for the same arguments
+    // converted as the function itself would convert them; a range gives its first
+    // element.  It never fails on the user's input: every mistake is a reason.
+    css::uno::Any reason(const OUString &name, const css::uno::Sequence<css::uno::Any> &args) {
+        try {
+            const cto_function_info *f = find(name);
+            if (!f)
+                return css::uno::Any("unknown function \"" + name.trim() +
+                                     "\": give the name of a DEAL function, e.g. \"DEALSOLVE\"");
+            const OUString calc = OUString::createFromAscii(f->calc_name);
+            if (args.getLength() > f->n_args)
+                return css::uno::Any(calc + " takes at most " + OUString::number(f->n_args) +
+                                     " arguments; " + OUString::number(args.getLength()) +
+                                     " were given");
+            double in[kMaxArgs];
+            const css::uno::Any none;
+            for (int j = 0; j < f->n_args && j < kMaxArgs; ++j) {
+                const css::uno::Any &a = j < args.getLength() ? args[j] : none;
+                View v;
+                in[j] = make_view(Arg(a), v) ? to_double(v.first(), f->args[j]) : kNaN;
+            }
+            char text[512];
+            cto_explain(f->id, in, text, sizeof text);
+            return css::uno::Any(calc + ": " +
+                                 OUString(text, static_cast<sal_Int32>(std::strlen(text)),
+                                          RTL_TEXTENCODING_UTF8));
+        } catch (const css::uno::Exception &) {
+            throw;
+        } catch (...) {
+            throw css::uno::RuntimeException("counteroffer: unexpected failure");
+        }
+    }
+
     // DEALCALLPROBE: the same argument conversion as every function, no model.
     css::uno::Any probe(const Arg *args) {
         try {

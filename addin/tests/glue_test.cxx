@@ -54,6 +54,20 @@ int cto_call(int id, const double *a, double *o, int *bad) {
     }
     return st;
 }
+// Output 1 ("code") is coded: words for 0, 1 and 2; other codes have none.
+const char *cto_output_word(int id, int k, double code) {
+    static const char *const kWords[] = {"zero", "one", "two"};
+    if (id != 0 || k != 1 || !(code >= 0.0 && code <= 2.0) || code != std::floor(code))
+        return nullptr;
+    return kWords[static_cast<int>(code)];
+}
+// The reason: "reason <value> <flag> <pick>" with the status cto_call gives.
+int cto_explain(int id, const double *a, char *text, size_t size) {
+    double o[2];
+    const int st = cto_call(id, a, o, nullptr);
+    std::snprintf(text, size, "reason %g %g %g", a[0], a[2], a[3]);
+    return st;
+}
 int cto_call_strided(int id, size_t n, const char *const *args, const ptrdiff_t *as,
                      char *const *outs, const ptrdiff_t *os, signed char *st, ptrdiff_t ss,
                      cto_batch_report *) {
@@ -121,10 +135,10 @@ std::uint32_t code_of(double d) {
     std::memcpy(&bits, &d, sizeof bits);
     return std::isnan(d) ? static_cast<std::uint32_t>(bits & 0xffffffffu) : 0;
 }
-} // namespace
 
-int main() {
-    rtl::Reference<DealFunctions> f(new DealFunctions);
+
+// Status -> Calc (addin/README.md "Error values") and argument conversion.
+void check_scalars(const rtl::Reference<DealFunctions> &f) {
     const css::uno::Any v(0.25);
     double got = 0;
     // Status -> Calc (addin/README.md "Error values").
@@ -149,7 +163,11 @@ int main() {
               Outcome::Illegal, "unknown choice -> invalid");
     check(scalar(*f, v, CTO_OK, css::uno::Any(OUString("yes"))) == Outcome::Illegal,
           "bad boolean text -> invalid");
-    // Arrays: one element per status, each with its own code.
+}
+
+// Arrays: one element per status, each with its own code; the outcome form; shapes.
+void check_arrays(const rtl::Reference<DealFunctions> &f) {
+    const css::uno::Any v(0.25);
     const Mixed vals = column({v, v, v, v, v, v, css::uno::Any()});
     const Mixed sts = column({css::uno::Any(0.0), css::uno::Any(1.0), css::uno::Any(2.0),
                               css::uno::Any(3.0), css::uno::Any(4.0), css::uno::Any(5.0),
@@ -168,13 +186,19 @@ int main() {
                       (want[i] != 0 || m[i][0] == 10.25), what);
         }
     }
-    // Outcome form: every output as a column; no deal keeps the library's values.
+    // Outcome form: every output as a column; no deal keeps the library's values; a coded
+    // output shows its word, an error its code.
     const css::uno::Any ro = f->evaluate(0, args, 4, true);
-    css::uno::Sequence<css::uno::Sequence<double>> mo;
+    css::uno::Sequence<css::uno::Sequence<css::uno::Any>> mo;
     check((ro >>= mo) && mo.getLength() == 7 && mo[0].getLength() == 2, "outcome: 7 x 2");
-    if (mo.getLength() == 7 && mo[2].getLength() == 2)
-        check(mo[2][0] == 10.25 && mo[2][1] == 2.0 && code_of(mo[4][1]) == 523,
-              "outcome: no deal shows values, no convergence its code");
+    if (mo.getLength() == 7 && mo[2].getLength() == 2) {
+        double v0 = 0, v4 = 0;
+        OUString w0, w2;
+        check((mo[2][0] >>= v0) && v0 == 10.25 && (mo[2][1] >>= w2) && w2 == "two",
+              "outcome: no deal shows its values, the code as its word");
+        check((mo[0][1] >>= w0) && w0 == "zero", "outcome: ok shows the code's word");
+        check((mo[4][1] >>= v4) && code_of(v4) == 523, "outcome: no convergence shows its code");
+    }
     // Ranges of different shapes are an invalid argument.
     const Mixed two = column({v, v});
     const Arg bad[] = {Arg(vals), Arg(two), Arg(none), Arg(none)};
@@ -185,6 +209,42 @@ int main() {
         threw = true;
     }
     check(threw, "ranges of different shapes -> IllegalArgument");
+}
+
+void check_reason(const rtl::Reference<DealFunctions> &f) {
+    const css::uno::Any v(0.25);
+    // DEALREASON: the function found by its Calc or catalogue name in any case, the
+    // arguments converted as the function converts them (defaults for the missing ones,
+    // a range's first element), the library's text after the Calc name; a mistake in the
+    // name or the count of arguments is itself a reason, never an error value.
+    auto reason = [&](const char *name, std::initializer_list<css::uno::Any> as) {
+        css::uno::Sequence<css::uno::Any> seq(static_cast<sal_Int32>(as.size()));
+        sal_Int32 i = 0;
+        for (const auto &x : as) seq.getArray()[i++] = x;
+        OUString text;
+        f->reason(OUString::createFromAscii(name), seq) >>= text;
+        return text;
+    };
+    check(reason("dealfake", {v, css::uno::Any(0.0)}) == "DEALFAKE: reason 0.25 1 0",
+          "reason: Calc name in any case, defaults applied");
+    check(reason("fake", {css::uno::Any(column({css::uno::Any(2.0), v})), css::uno::Any(0.0),
+                          css::uno::Any(OUString("false")), css::uno::Any(OUString("beta"))}) ==
+              "DEALFAKE: reason 2 0 1",
+          "reason: catalogue name; a range gives its first element; text choices converted");
+    check(reason(" DEALFAKEOUTCOME ", {v, css::uno::Any(0.0)}).startsWith("DEALFAKE: reason"),
+          "reason: the outcome form's name");
+    check(reason("DEALNOPE", {v}).startsWith("unknown function \"DEALNOPE\""),
+          "reason: an unknown name is a reason");
+    check(reason("DEALFAKE", {v, v, v, v, v}) == "DEALFAKE takes at most 4 arguments; 5 were given",
+          "reason: too many arguments is a reason");
+}
+} // namespace
+
+int main() {
+    rtl::Reference<DealFunctions> f(new DealFunctions);
+    check_scalars(f);
+    check_arrays(f);
+    check_reason(f);
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;
 }

@@ -25,7 +25,8 @@ KINDS = ("real", "unit", "nonneg", "positive", "bool", "count", "choice", "optio
 C_TYPES = {"bool": "int", "count": "int64_t", "choice": "int"}
 
 _FUNCTION_KEYS = {"id", "name", "calc_name", "summary", "formula", "source", "statuses",
-                  "args", "arg", "output", "example", "model", "adapter", "block_kernel"}
+                  "args", "arg", "output", "example", "model", "adapter", "block_kernel",
+                  "outcome", "reference"}
 _ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip"}
 
 
@@ -61,6 +62,7 @@ class Output:
     name: str
     help: str
     words: Tuple[str, ...] = ()  # a coded output: the word for code 0, 1, ...
+    c_type: str = "double"  # its field's type in a struct outcome ("double" or "int")
 
 
 @dataclasses.dataclass(frozen=True)
@@ -75,6 +77,11 @@ class Function:
     args: Tuple[Arg, ...]
     outputs: Tuple[Output, ...]
     model: str  # the core function cto::core::<model>
+    # A struct outcome: (public C struct, core struct); its fields are the outputs, by name.
+    outcome: Optional[Tuple[str, str]]
+    # A reference table in another layout, checked by the function's own tests (a path
+    # under tests/reference/); None: tests/reference/<name>.csv in the common layout.
+    reference: Optional[str]
     adapter: bool  # table thunk and named C entry are hand-written (struct interfaces)
     block_kernel: Optional[str]
     example_scenario: Optional[str]
@@ -179,19 +186,30 @@ def _function(path: pathlib.Path, shared: Dict[str, Arg]) -> Function:
             raise _fail(path, f"required argument {a.name} after an optional one")
         seen_default = seen_default or a.has_default
     outputs = tuple(Output(_str(o, "name", path), _str(o, "help", path),
-                           tuple(o.get("words", ())))
+                           tuple(o.get("words", ())), o.get("type", "double"))
                     for o in d.get("output", [])) or (VALUE_OUTPUT,)
+    if any(o.c_type not in ("double", "int") for o in outputs):
+        raise _fail(path, "an output's type is double or int")
+    outcome = d.get("outcome")
+    if outcome is not None:
+        if set(outcome) != {"c", "core"}:
+            raise _fail(path, "'outcome' needs c (the public struct) and core (the core struct)")
+        outcome = (outcome["c"], outcome["core"])
     example = d.get("example", {})
     fid = d.get("id")
     if not isinstance(fid, int) or fid < 0:
         raise _fail(path, "'id' must be a whole number >= 0")
     adapter = bool(d.get("adapter", False))
-    if len(outputs) > 1 and not adapter:
-        raise _fail(path, "a function with several outputs needs a hand-written adapter")
-    return Function(id=fid, name=name, calc_name=_str(d, "calc_name", path),
+    if len(outputs) > 1 and not adapter and outcome is None:
+        raise _fail(path, "a function with several outputs needs an outcome struct or an adapter")
+    calc_name = d.get("calc_name")
+    if not isinstance(calc_name, str):
+        raise _fail(path, "'calc_name' must be a string (\"\": no Calc function of its own)")
+    return Function(id=fid, name=name, calc_name=calc_name,
                     summary=_str(d, "summary", path), formula=_str(d, "formula", path),
                     source=_str(d, "source", path), statuses=_str(d, "statuses", path),
                     args=tuple(args), outputs=outputs, model=d.get("model", name),
+                    outcome=outcome, reference=d.get("reference"),
                     adapter=adapter, block_kernel=d.get("block_kernel"),
                     example_scenario=example.get("scenario"),
                     example_python=(example.get("python") or "").strip("\n") or None,
@@ -204,11 +222,14 @@ def load(directory: pathlib.Path = FUNCTIONS_DIR) -> List[Function]:
     functions = [_function(p, shared) for p in sorted(directory.glob("*.toml"))
                  if p.name != "arguments.toml"]
     functions.sort(key=lambda f: f.id)
+    for f in functions:
+        if len(f.args) > 32 or len(f.outputs) > 32:
+            raise DefinitionError(f"{f.name}: more than CTO_MAX_ARGS / CTO_MAX_OUTPUTS (32)")
     ids = [f.id for f in functions]
     if ids != list(range(len(functions))):
         raise DefinitionError(f"ids must be 0..{len(functions) - 1} without gaps; found {ids}")
     for attr in ("name", "calc_name"):
-        values = [getattr(f, attr) for f in functions]
+        values = [getattr(f, attr) for f in functions if getattr(f, attr)]
         dup = {v for v in values if values.count(v) > 1}
         if dup:
             raise DefinitionError(f"duplicate {attr}: {sorted(dup)}")

@@ -66,7 +66,22 @@ def _thunk(f: Function) -> List[str]:
             call.append(f"v{j}")
         else:
             call.append(f"a[{j}]")
-    lines.append(f"    return core::{f.model}({', '.join(call + ['o', 'bad'])});")
+    if f.outcome is None:
+        lines.append(f"    return core::{f.model}({', '.join(call + ['o', 'bad'])});")
+        lines.append("}")
+        return lines
+    # A struct outcome: its fields in output order; int fields are NaN when the call
+    # itself failed (invalid argument or internal error).
+    lines.append(f"    core::{f.outcome[1]} r;")
+    lines.append(f"    const int st = core::{f.model}({', '.join(call + ['&r', 'bad'])});")
+    lines.append("    const bool failed = st == CTO_E_INVALID || st == CTO_E_INTERNAL;")
+    lines.append("    (void)failed;")
+    for k, o in enumerate(f.outputs):
+        if o.c_type == "int":
+            lines.append(f"    o[{k}] = failed ? core::kNaN : static_cast<double>(r.{o.name});")
+        else:
+            lines.append(f"    o[{k}] = r.{o.name};")
+    lines.append("    return st;")
     lines.append("}")
     return lines
 
@@ -124,9 +139,26 @@ def rows(functions: List[Function]) -> str:
     return "\n".join(out)
 
 
+def _out_type(f: Function) -> str:
+    return f"{f.outcome[0]} *" if f.outcome else "double *"
+
+
 def _signature(f: Function) -> str:
     params = ", ".join(f"{a.c_type} {a.name}" for a in f.args)
-    return f"int cto_{f.name}({params}, double *out)"
+    return f"int cto_{f.name}({params}, {_out_type(f)}out)"
+
+
+def _named_struct_body(f: Function, call: List[str]) -> List[str]:
+    c_type, core_type = f.outcome
+    fields_nan = [f"        out->{o.name} = core::kNaN;" for o in f.outputs if o.c_type == "double"]
+    fields_int = [f"        out->{o.name} = 0;" for o in f.outputs if o.c_type == "int"]
+    copy = [f"        out->{o.name} = r.{o.name};" for o in f.outputs]
+    return ([f"    if (!out || out->size < sizeof({c_type})) return CTO_E_INVALID;",
+             "    try {",
+             f"        core::{core_type} r;",
+             f"        const int st = core::{f.model}({', '.join(call + ['&r', 'nullptr'])});"]
+            + copy + ["        return st;", "    } catch (...) {"] + fields_nan + fields_int
+            + ["        return CTO_E_INTERNAL;", "    }"])
 
 
 def named(functions: List[Function]) -> str:
@@ -139,7 +171,7 @@ def named(functions: List[Function]) -> str:
     for f in functions:
         if f.adapter:
             continue
-        types = ", ".join([a.c_type for a in f.args] + ["double *"])
+        types = ", ".join([a.c_type for a in f.args] + [_out_type(f)])
         out.append(f"static_assert(std::is_same_v<decltype(&cto_{f.name}), int (*)({types})>,")
         out.append(f'              "cto_{f.name}: the header prototype and lib/functions/{f.name}.toml differ");')
     out += ["", 'extern "C" {', ""]
@@ -150,9 +182,12 @@ def named(functions: List[Function]) -> str:
         for a in f.args:
             call.append(f"{a.name} != 0" if a.kind == "bool" else a.name)
         out.append(f"CTO_API {_signature(f)} {{")
-        out.append("    return cto::capi::guarded(out, [&] {")
-        out.append(f"        return core::{f.model}({', '.join(call + ['out', 'nullptr'])});")
-        out.append("    });")
+        if f.outcome:
+            out += _named_struct_body(f, call)
+        else:
+            out.append("    return cto::capi::guarded(out, [&] {")
+            out.append(f"        return core::{f.model}({', '.join(call + ['out', 'nullptr'])});")
+            out.append("    });")
         out.append("}")
         out.append("")
     out.append('}  // extern "C"')
@@ -163,7 +198,8 @@ def named(functions: List[Function]) -> str:
 def dispatch(functions: List[Function]) -> str:
     out = [HEADER,
            "// call_named(id, d, n, out, &found): the named C function of catalogue id, with",
-           "// argument j taken from d[j] (real kinds) or n[j] (bool, count, choice).",
+           "// argument j taken from d[j] (real kinds) or n[j] (bool, count, choice); a struct",
+           "// outcome's fields are written to out[k] in output order.",
            "inline int call_named(int id, const double *d, const int64_t *n, double *out, bool *found) {",
            "    *found = true;",
            "    switch (id) {"]
@@ -178,11 +214,34 @@ def dispatch(functions: List[Function]) -> str:
                 call.append(f"static_cast<int>(n[{j}])")
             else:
                 call.append(f"d[{j}]")
-        out.append(f"        case {f.id}: return cto_{f.name}({', '.join(call + ['out'])});")
+        if f.outcome is None:
+            out.append(f"        case {f.id}: return cto_{f.name}({', '.join(call + ['out'])});")
+            continue
+        out.append(f"        case {f.id}: {{")
+        out.append(f"            {f.outcome[0]} r;")
+        out.append("            r.size = sizeof r;")
+        out.append(f"            const int st = cto_{f.name}({', '.join(call + ['&r'])});")
+        for k, o in enumerate(f.outputs):
+            out.append(f"            out[{k}] = static_cast<double>(r.{o.name});")
+        out.append("            return st;")
+        out.append("        }")
     out += ["        default: *found = false; return -1;", "    }", "}", ""]
     adapters = " || ".join(f"id == {f.id}" for f in functions if f.adapter) or "false"
     out += ["// Whether catalogue id has a hand-written struct adapter (no named scalar function).",
             f"inline bool is_adapter(int id) {{ return {adapters}; }}", ""]
+    return "\n".join(out)
+
+
+def reference_tables(functions: List[Function]) -> str:
+    out = [HEADER, "// external_reference(name): the reference table of a function whose table has",
+           "// another layout and is checked by the function's own tests (a path under",
+           "// tests/reference/), or nullptr for the common layout, tests/reference/<name>.csv.",
+           "#include <cstring>", "",
+           "inline const char *external_reference(const char *name) {"]
+    for f in functions:
+        if f.reference:
+            out.append(f"    if (std::strcmp(name, {c_string(f.name)}) == 0) return {c_string(f.reference)};")
+    out += ["    return nullptr;", "}", ""]
     return "\n".join(out)
 
 
@@ -197,8 +256,8 @@ def definitions_json(functions: List[Function]) -> str:
     data = [{"id": f.id, "name": f.name, "calc_name": f.calc_name, "summary": f.summary,
              "formula": f.formula, "source": f.source, "statuses": f.statuses,
              "args": [arg(a) for a in f.args],
-             "outputs": [{"name": o.name, "help": o.help, "words": list(o.words)}
-                         for o in f.outputs],
+             "outputs": [{"name": o.name, "help": o.help, "words": list(o.words),
+                          "type": o.c_type} for o in f.outputs],
              "example": {"scenario": f.example_scenario, "python": f.example_python}}
             for f in functions]
     return json.dumps({"functions": data}, indent=1, ensure_ascii=False) + "\n"
@@ -225,6 +284,7 @@ def main(argv: List[str]) -> int:
     write_if_changed(outdir / "named_entries.cpp", named(functions))
     write_if_changed(outdir / "named_dispatch.inc", dispatch(functions))
     write_if_changed(outdir / "definitions.json", definitions_json(functions))
+    write_if_changed(outdir / "reference_tables.inc", reference_tables(functions))
     return 0
 
 

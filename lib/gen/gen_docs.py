@@ -37,21 +37,36 @@ def camel(name: str) -> str:
     return "".join(part[:1].upper() + part[1:] for part in name.split("_"))
 
 
+def _calc_home(f: Function, functions: List[Function]) -> str:
+    """The Calc function that serves a function without a Calc name of its own: the
+    function with the same arguments whose first output has its name."""
+    for g in functions:
+        if g.calc_name and g.outputs[0].name == f.name and [a.name for a in g.args] == [a.name for a in f.args]:
+            return g.calc_name
+    return "no Calc form"
+
+
 def readme_functions(functions: List[Function]) -> str:
     rows = ["| name | Calc | inputs (Python defaults) | result | source |", "|---|---|---|---|---|"]
     for f in functions:
-        rows.append(f"| {f.name} | {f.calc_name} | {inputs_text(f)} | {f.summary} | {f.source} |")
+        calc = f.calc_name or "(see " + _calc_home(f, functions) + ")"
+        rows.append(f"| {f.name} | {calc} | {inputs_text(f)} | {f.summary} | {f.source} |")
     return "\n".join(rows)
 
 
 def addin_functions(functions: List[Function]) -> str:
     rows = ["| Calc name | method | result |", "|---|---|---|"]
     for f in functions:
+        if not f.calc_name:
+            continue
         rows.append(f"| {f.calc_name} | get{camel(f.name)} | {f.summary} |")
         if len(f.outputs) > 1:
-            outs = "; ".join(f"{o.name}: {o.help}" for o in f.outputs)
+            outs = ", ".join(o.name + (" (" + " / ".join(o.words) + ")" if o.words else "")
+                             for o in f.outputs)
             rows.append(f"| {f.calc_name}OUTCOME | get{camel(f.name)}Outcome | "
-                        f"array of every output, in this order: {outs} |")
+                        f"array, a row per case with the columns {outs} |")
+    rows.append("| DEALREASON | getReason | why a DEAL function gives its result, in words: the "
+                "function's name, then its arguments (see \"Why a cell fails\") |")
     rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "
                 "argument after the usual conversion; has the argument shape of DEALSHARE (two "
                 "required, two optional) and measures call overhead |")

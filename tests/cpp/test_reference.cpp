@@ -33,6 +33,7 @@
 #include <vector>
 
 #include "counteroffer/counteroffer.h"
+#include "reference_tables.inc"
 
 #ifndef CTO_REFERENCE_DIR
 #error "CTO_REFERENCE_DIR must name the directory of the reference tables"
@@ -251,6 +252,12 @@ TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]
         REQUIRE(f != nullptr);
         INFO("function " << f->name);
         REQUIRE(cto_function_find(f->name) == f);
+        if (const char *ext = external_reference(f->name)) {
+            // Another layout, checked by the function's own tests: it must exist.
+            std::ifstream in(std::string(CTO_REFERENCE_DIR) + "/" + ext);
+            CHECK(in.good());
+            continue;
+        }
         const Table t = read_table(f->name);
         CHECK(t.found);
         std::vector<std::string> want;
@@ -281,6 +288,7 @@ TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[re
     for (size_t i = 0; i < n; ++i) {
         const cto_function_info *f = cto_function_find(cto_function_at(i)->name);
         REQUIRE(f != nullptr);
+        if (external_reference(f->name)) continue;  // checked by the function's own tests
         const Table t = read_table(f->name);
         if (!t.found || t.header.size() != static_cast<size_t>(f->n_args + f->n_outputs + 2)) {
             FAIL_CHECK("table " << f->name << " missing or with a wrong header");

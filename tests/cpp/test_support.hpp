@@ -40,6 +40,10 @@ inline std::vector<double> base_args(const cto_function_info *f) {
             else if (n == "own_curvature") v = 0.5;
             else if (n == "other_curvature") v = 0.8;
             else if (n == "parties") v = 5;
+            else if (n == "seller_low") v = 0.0;
+            else if (n == "seller_high") v = 1.0;
+            else if (n == "buyer_low") v = 0.25;
+            else if (n == "buyer_high") v = 1.25;
             else if (n == "observed_share") v = 0.55;
             else if (n == "high_value") v = 1.0;
             else if (n == "low_value") v = 0.5;

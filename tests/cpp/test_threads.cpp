@@ -31,7 +31,7 @@ TEST_CASE("two threads calling every function agree with a serial run", "[thread
     }
     auto run = [&](size_t begin, size_t step, std::vector<double> &out, std::vector<int> &st) {
         for (size_t i = begin; i < cases.size(); i += step) {
-            double o[8];
+            double o[CTO_MAX_OUTPUTS];
             st[i] = cto_call(cases[i].id, cases[i].args.data(), o, nullptr);
             out[i] = o[0];
         }
@@ -45,7 +45,7 @@ TEST_CASE("two threads calling every function agree with a serial run", "[thread
     std::thread t1([&] { run(0, 1, parallel, pst); });
     std::thread t2([&] {
         for (size_t i = cases.size(); i-- > 0;) {
-            double o[8];
+            double o[CTO_MAX_OUTPUTS];
             second_st[i] = cto_call(cases[i].id, cases[i].args.data(), o, nullptr);
             second[i] = o[0];
         }

@@ -183,19 +183,21 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
         }
     }
     const cto_function_info *f = cto_function_at(static_cast<size_t>(which));
-    double a[16];
+    double a[CTO_MAX_ARGS];
     int64_t n[8];
     for (double &x : a) x = pick_double(p);
     for (int64_t &x : n) x = pick_int(p);
     n[2] = p.ConsumeIntegralInRange<int>(-1, 2);  // a choice, sometimes out of range
-    double named_out = sentinel();
-    int64_t nt[16];
-    double g[16];
+    double named_outs[CTO_MAX_OUTPUTS];
+    for (double &o : named_outs) o = sentinel();
+    double &named_out = named_outs[0];
+    int64_t nt[CTO_MAX_ARGS];
+    double g[CTO_MAX_ARGS];
     typed_args(f, a, n, nt, g);
     bool found = false;
-    const int named = call_named(f->id, a, nt, &named_out, &found);
+    const int named = call_named(f->id, a, nt, named_outs, &found);
     if (!found && !is_adapter(f->id)) finding("no named function in the dispatch", f->name);
-    double outs[8];
+    double outs[CTO_MAX_OUTPUTS];
     for (double &o : outs) o = sentinel();
     int bad = -2;
     const int generic = cto_call(f->id, g, outs, &bad);
@@ -224,17 +226,17 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size) {
             finding("named and generic values differ", f->name);
     }
     // The strided entry point over three elements, the middle one broadcast.
-    const char *args[16];
-    ptrdiff_t strides[16];
-    double col[16][3];
+    const char *args[CTO_MAX_ARGS];
+    ptrdiff_t strides[CTO_MAX_ARGS];
+    double col[CTO_MAX_ARGS][3];
     for (int j = 0; j < f->n_args; ++j) {
         col[j][0] = col[j][1] = col[j][2] = g[j];
         args[j] = reinterpret_cast<const char *>(col[j]);
         strides[j] = (j % 2) ? 0 : static_cast<ptrdiff_t>(sizeof(double));
     }
-    double so[8][3];
-    char *optr[8];
-    ptrdiff_t ostr[8];
+    double so[CTO_MAX_OUTPUTS][3];
+    char *optr[CTO_MAX_OUTPUTS];
+    ptrdiff_t ostr[CTO_MAX_OUTPUTS];
     for (int k = 0; k < f->n_outputs; ++k) {
         so[k][0] = so[k][1] = so[k][2] = sentinel();
         optr[k] = reinterpret_cast<char *>(so[k]);

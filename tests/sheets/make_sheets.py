@@ -67,6 +67,10 @@ R11 = "REFERENCE.md s.11 row %d (mpmath 50 digits)"
 MPM = "mpmath 50 digits: %s"
 
 # (case, formula, expected number or error text, source[, tolerance])
+class Text(str):
+    """An expected text result (a word of a coded output), as opposed to an error name."""
+
+
 VALUES = [
     ("Rubinstein, equal factors", "=DEALSHARE(0.5;0.5)", 2 / 3.0, R11 % 9),
     ("Rubinstein, d=(0.95,0.9)", "=DEALSHARE(0.95;0.9)", 0.689655172413793, R11 % 14),
@@ -112,15 +116,38 @@ VALUES = [
     ("solve outcome: other share", "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0;0.5);1;2)",
      0.5, R11 % 42 + ": 1 - 0.5"),
     ("solve outcome: other's option binds",
-     "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0;0.5);1;3)", 2,
-     R11 % 42 + " [B's option binds]; 2 = other (header CTO_BINDS_OTHER)"),
+     "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0;0.5);1;3)", Text("theirs"),
+     R11 % 42 + " [B's option binds]; the word of CTO_BINDS_OTHER (cto_output_word)"),
     ("solve outcome: deal rational", "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0;0.5);1;4)",
-     1, R11 % 42 + ": agreement"),
+     Text("yes"), R11 % 42 + ": agreement"),
     ("solve outcome: no deal, own takes option",
      "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0.6;0.5);1;1)", 0.6, R11 % 83),
     ("solve outcome: no deal flagged", "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0.6;0.5);1;4)",
-     0, R11 % 83 + ": no agreement"),
+     Text("no"), R11 % 83 + ": no agreement"),
+    ("solve outcome: no deal, which option binds",
+     "=INDEX(DEALSOLVEOUTCOME(0.9;0.9;0;0;0;0;0;0.6;0.5);1;3)", Text("none"),
+     R11 % 83 + ": nobody's option binds a deal that is not made"),
     ("deadline T=1", "=DEALDEADLINE(0.9;0.9;1)", 1.0, R11 % 23),
+    ("double auction, uniform on [0, 1], k = 1/2", "=DEALTRADE(0;1;0;1)", 9 / 32,
+     "Chatterjee & Samuelson (1983); Gibbons (1992) s.3.2.C: trade iff v >= c + 1/4, "
+     "probability (3/4)^2/2 = 9/32"),
+    ("reason: a factor outside 0 to 1", '=DEALREASON("DEALSHARE";1.2;0.95)',
+     Text("DEALSHARE: own_factor = 1.2 is outside 0 to 1"),
+     "the library's reason (cto_explain); CATALOGUE.md: a factor is in [0, 1]"),
+    ("reason: a rate typed as 8 for 8%", '=DEALREASON("dealsharerate";8;0.05;30)',
+     Text("DEALSHARERATE: ok, but own_rate = 8 is outside the usual 0 to 1: above 100% a "
+          "year: a percentage typed as a whole number? (8% is 0.08)"),
+     "plausible range of a rate (common practice, no source)"),
+    ("reason: no deal", '=DEALREASON("DEALSOLVE";0.9;0.95;0;0;0;0;0;70;60;100)',
+     Text("DEALSOLVE: no rational deal (#N/A in Calc): the surplus 100 does not exceed "
+          "what the parties get without a deal (own 70, other 60); the result is own's "
+          "no-deal payoff"),
+     "walk-away values 70 + 60 above the surplus 100: no deal (CATALOGUE.md)"),
+    ("reason: ok", '=DEALREASON("DEALSHARE";0.9;0.95)', Text("DEALSHARE: ok"),
+     "the library's reason for a valid call"),
+    ("reason: an unknown name", '=DEALREASON("DEALNONE";1)',
+     Text('unknown function "DEALNONE": give the name of a DEAL function, e.g. "DEALSOLVE"'),
+     "the reason function never fails on the user's input"),
     ("deadline T=2", "=DEALDEADLINE(0.9;0.9;2)", 0.1, R11 % 24),
     ("deadline T=3", "=DEALDEADLINE(0.9;0.9;3)", 0.91, R11 % 25),
     ("deadline T=10", "=DEALDEADLINE(0.9;0.9;10)", 0.342800821, R11 % 27),
@@ -267,6 +294,8 @@ ARRAY_ROWS = [
 
 
 def check_formula(r, expected):
+    if isinstance(expected, Text):
+        return "=IF(ISERROR(B%d);FALSE();EXACT(B%d;C%d))" % (r, r, r)
     if isinstance(expected, str):
         return "=IFERROR(ERRORTYPE(B%d)=G%d;FALSE())" % (r, r)
     return "=IF(ISERROR(B%d);FALSE();ABS(B%d-C%d)<=G%d*MAX(1;ABS(C%d)))" % (r, r, r, r, r)
@@ -292,7 +321,8 @@ def document(title, rows):
         cells.append(formula_cell("=FORMULA(B%d)" % r) if row.get("formula_text_row") is None
                      else formula_cell("=FORMULA(B%d)" % row["formula_text_row"]))
         cells.append(text_cell(row["source"]))
-        cells.append(cell_value(ERR[exp] if isinstance(exp, str) else row.get("tol", 1e-13)))
+        cells.append(cell_value(0 if isinstance(exp, Text) else
+                                ERR[exp] if isinstance(exp, str) else row.get("tol", 1e-13)))
         inputs = row.get("inputs", {})
         for col in "HIJ":
             cells.append(cell_value(inputs.get(col)))
@@ -310,7 +340,7 @@ def scalar_rows(cases):
         case, formula, expected, source = c[:4]
         extra = c[4] if len(c) > 4 else None
         row = {"case": case, "formula": formula, "source": source,
-               "expected": expected if isinstance(expected, str) else float(expected)}
+               "expected": expected if isinstance(expected, str) else float(expected)}  # Text too
         if isinstance(extra, dict):
             # inputs named H2 etc. refer to this row: rewrite to the row's number
             r = i + 2

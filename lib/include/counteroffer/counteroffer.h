@@ -77,6 +77,8 @@ extern "C" {
 #define CTO_E_INDETERMINATE 3  /* many equilibria (e.g. both factors 1): NaN   */
 #define CTO_E_NO_CONVERGENCE 4 /* a numerical method did not converge: NaN     */
 #define CTO_E_INTERNAL 5       /* a defect in the library: NaN                 */
+#define CTO_E_PRECISION 6      /* share_range: estimates reported, but some requested
+                                  quantile is short of the digit target (added in 1.1) */
 
 /* Static, never NULL: "ok", "invalid argument", ...; "unknown status" otherwise. */
 CTO_API const char *cto_status_name(int status);
@@ -541,6 +543,206 @@ CTO_API int cto_screening_profit(double high_value, double low_value,
                                  double buyer_factor, double *out);
 
 /* =========================================================================
+ * Private information: two-sided private values
+ * ========================================================================= */
+
+/* Regimes of cto_double_auction (pinned; only ever appended). */
+#define CTO_TRADE_NONE 0        /* buyer_high <= seller_low: no gains from trade      */
+#define CTO_TRADE_ONE_PRICE 1   /* only one-price equilibria                           */
+#define CTO_TRADE_TRIANGLE 2    /* linear equilibrium, no clamp binds                  */
+#define CTO_TRADE_CLAMPED 3     /* linear equilibrium with clamped asks and/or bids     */
+#define CTO_TRADE_POSTED_ASK 4  /* the seller's cost is known: a posted ask           */
+#define CTO_TRADE_POSTED_BID 5  /* the buyer's value is known: a posted bid           */
+/* Flags of cto_double_auction, or-ed together. */
+#define CTO_TRADE_FLAG_ONE_PRICE_EXISTS 1   /* efficient one-price equilibria exist    */
+#define CTO_TRADE_FLAG_CONVENTION 2         /* expected_price is a convention's value  */
+#define CTO_TRADE_FLAG_NEAR_BOUNDARY 4      /* within 1e-9 D of a regime boundary      */
+#define CTO_TRADE_FLAG_FIRST_BEST_FEASIBLE 8 /* some mechanism attains the first best  */
+
+/*! Outcome of cto_double_auction.  Set size = sizeof(cto_trade_outcome) before the call;
+ *  fields are only ever appended.  Money in the units of the inputs. */
+typedef struct cto_trade_outcome {
+    size_t size;
+    int regime;                      /* CTO_TRADE_*                                   */
+    int flags;                       /* CTO_TRADE_FLAG_* bits                         */
+    double trade_probability;        /* P(trade)                                      */
+    double expected_price;           /* E[price | trade]; NaN without trade           */
+    double buyer_gain;               /* E[(v - p) 1{trade}], ex ante                  */
+    double seller_gain;              /* E[(p - c) 1{trade}], ex ante                  */
+    double total_gain;               /* buyer_gain + seller_gain                      */
+    double first_best_gain;          /* E[(v - c)+]                                   */
+    double first_best_probability;   /* P(v >= c)                                     */
+    double second_best_gain;         /* Myerson-Satterthwaite bound on any mechanism  */
+    double second_best_threshold;    /* g*: trade iff v - c >= g* in the best rule    */
+    double second_best_probability;  /* P(v - c >= g*)                                */
+    double efficiency;               /* total_gain / first_best_gain                  */
+    double second_best_efficiency;   /* second_best_gain / first_best_gain            */
+    double price_low, price_high;    /* one-price interval [s_hi, b_lo], else NaN     */
+    double ask_floor;                /* the lowest ask (clamp); NaN if not linear     */
+    double bid_ceiling;              /* the highest bid (clamp); NaN if not linear    */
+} cto_trade_outcome;
+
+/*! cto_double_auction: the linear equilibrium of the k-double auction with uniform private
+ *  values (Chatterjee & Samuelson 1983; Gibbons 1992 s.3.2.C), generalised to any two
+ *  intervals with clamped strategies, its trade probability, expected price and gains,
+ *  against the first best and the Myerson-Satterthwaite (1983, Theorem 1 and Corollary 1)
+ *  second best.
+ *  The seller's cost c ~ U[s_lo, s_hi] and the buyer's value v ~ U[b_lo, b_hi] are
+ *  private and independent.  Both name a price at once (ask a, bid b); they trade iff
+ *  b >= a at p = k b + (1 - k) a.  With D = b_hi - s_lo,
+ *      A_lo = s_lo + (1 - k) D/2,   B_hi = s_lo + (2 - k) D/2,
+ *      ask a(c) = max(B_lo, (c + (1 - k) B_hi)/(2 - k)),
+ *      bid b(v) = min(A_hi, (v + k A_lo)/(1 + k)),
+ *  B_lo = the unclamped bid of b_lo, A_hi = the unclamped ask of s_hi.  Trade happens
+ *  iff v - A_lo >= (1 + k)/(2 - k) (c - s_lo); for [0,1]^2 and k = 1/2 iff v >= c + 1/4.
+ *  The expectations are exact integrals of affine functions over the clipped trade
+ *  polygons (no quadrature).  When B_lo > A_hi only one-price equilibria remain: every
+ *  type names one p0 in [s_hi, b_lo]; trade is certain and efficient and the point value
+ *  p0 = k s_hi + (1 - k) b_lo is a convention (flag).  A known cost (s_lo = s_hi) gives
+ *  a posted ask A* = s + (1 - k)(b_hi - s)/2, a known value a posted bid
+ *  B* = u - k (u - s_lo)/2 (the limits of the linear equilibrium).
+ *  Second best: trade iff v - c >= g*, g* the root in (0, D/2) of
+ *  E[(2(v - c) - D) 1{v - c >= g}] = 0 (uniform virtual values); g* = 0 and the second
+ *  best equals the first best when s_hi <= b_lo or one interval is a point.
+ *  Arguments (catalogue order): seller_low s_lo <= seller_high s_hi, buyer_low b_lo <=
+ *  buyer_high b_hi (money, finite); k in [0, 1], the weight of the bid in the price
+ *  (k = 1/2 splits the difference).
+ *  Status: CTO_OK -> every field (expected_price NaN only if P(trade) underflows);
+ *          CTO_E_NO_DEAL (b_hi <= s_lo: no gains) -> regime none, probabilities and gains
+ *          0, prices, ratios and g* NaN;
+ *          CTO_E_INVALID (NaN or infinite argument, a low above its high (index of the
+ *          high), k outside [0, 1], spreads that overflow) -> every field NaN.
+ *  Accuracy: relative error <= 1e-14 against 50-digit quadrature of the strategies
+ *  (tests/reference/private), absolute 1e-14 x D for gains near zero; g* to about
+ *  1e-15 x D / (density of v - c at g*).
+ *  Added in 1.1. */
+CTO_API int cto_double_auction(double seller_low, double seller_high, double buyer_low,
+                               double buyer_high, double k, cto_trade_outcome *out);
+
+/*! cto_trade_probability: P(trade) of cto_double_auction (same arguments and statuses;
+ *  0 with CTO_E_NO_DEAL, NaN with CTO_E_INVALID), as a scalar function.  Added in 1.1. */
+CTO_API int cto_trade_probability(double seller_low, double seller_high, double buyer_low,
+                                  double buyer_high, double k, double *out);
+
+/* =========================================================================
+ * Ranges under uncertainty: quantiles of the split when inputs are ranges
+ * =========================================================================
+ * share_range: the combined model from rates (solve_from_rates) with any numeric input
+ * given as a range, its split's quantiles by randomized quasi-Monte Carlo.  Method
+ * (docs/models/ranges.md): Sobol' points (Sobol' 1967) with Joe & Kuo (2008) direction
+ * numbers in natural order, hashed nested uniform (Owen 1995, 1997) scrambling fixed by
+ * the seed and the replicate; each input x_j = F_j^-1(u_j) for uniform, triangular or
+ * PERT (Malcolm et al. 1959; Vose 2008: Beta with alpha = 1 + 4 (m - lo)/(hi - lo),
+ * beta = 1 + 4 (hi - m)/(hi - lo)); R independent replicates of n = 2^m points, n doubled
+ * until the 95% half-width t_{R-1,0.975} SE of every requested quantile of own share is at
+ * most half a unit of its `digits`-th significant digit, or a cap (CTO_E_PRECISION:
+ * estimates reported, never a silent rough number); quantiles by Hyndman & Fan (1996)
+ * definition 7 over all R n draws, standard errors from the replicates.  The same inputs
+ * and seed give the same bits whatever the thread count (spec_version states the rules).
+ * Memory: 16 R n bytes at the final size, at most 256 MiB.
+ *
+ * Inputs, in the catalogue order of solve_from_rates: 0 own_rate, 1 other_rate, 2 days,
+ * 3 breakdown_prob, 4 own_fallback, 5 other_fallback, 6 own_inside, 7 other_inside,
+ * 8 own_outside, 9 other_outside, 10 surplus, 11 own_opens, 12 basis, 13 continuous.
+ * own_opens and continuous must be fixed at 0 or 1; an absent walk-away value is a fixed
+ * -infinity.  Invalid-input indices (`bad`): 0..13 the inputs, 14 probabilities, 15 seed,
+ * 16 replicates, 17 digits, 18 log2_start, 19 log2_max, 20 threads, 21 a size field.
+ * Added in 1.1. */
+#define CTO_RANGE_FIXED 0      /* the value in `mode`                                  */
+#define CTO_RANGE_UNIFORM 1    /* uniform on [low, high]                               */
+#define CTO_RANGE_TRIANGULAR 2 /* triangular (low, mode, high)                         */
+#define CTO_RANGE_PERT 3       /* PERT (low, mode, high): Beta, weight 4 on the mode   */
+#define CTO_RANGE_INPUTS 14
+#define CTO_RANGE_MAX_PROBS 32
+
+typedef struct cto_range_arg {
+    int kind;                   /* CTO_RANGE_*                                          */
+    double low, mode, high;     /* low <= mode <= high; a fixed input uses mode         */
+} cto_range_arg;
+
+typedef struct cto_range_input {
+    size_t size;                /* sizeof(cto_range_input)                              */
+    cto_range_arg arg[CTO_RANGE_INPUTS];
+} cto_range_input;
+
+typedef struct cto_range_options {
+    size_t size;                /* sizeof(cto_range_options)                            */
+    int n_probs;                /* 1..32; default 3                                     */
+    double probs[CTO_RANGE_MAX_PROBS]; /* each in (0, 1); default 0.1, 0.5, 0.9         */
+    uint64_t seed;              /* default 0                                            */
+    int replicates;             /* R, 2..256; default 16                                */
+    int digits;                 /* significant digits targeted, 1..15; default 3        */
+    int log2_start;             /* first n = 2^log2_start per replicate; default 10     */
+    int log2_max;               /* cap; default 20; R 2^log2_max <= 2^24                */
+    int threads;                /* worker threads, 0 or 1: the calling thread; default 1*/
+} cto_range_options;
+
+typedef struct cto_range_estimate {
+    double value, se, half_width; /* estimate, standard error, 95% half-width           */
+    int digits;                 /* significant digits the half-width supports           */
+} cto_range_estimate;
+
+typedef struct cto_range_outcome {
+    size_t size;                /* sizeof(cto_range_outcome)                            */
+    int status;                 /* as returned                                          */
+    int bad;                    /* on CTO_E_INVALID: the index (see above), else -1     */
+    int spec_version;           /* the generator and estimator rules' version           */
+    int n_probs;
+    double probs[CTO_RANGE_MAX_PROBS];
+    cto_range_estimate own[CTO_RANGE_MAX_PROBS];   /* quantiles of own share (money)    */
+    cto_range_estimate other[CTO_RANGE_MAX_PROBS]; /* quantiles of other's share        */
+    cto_range_estimate own_mean, other_mean;
+    cto_range_estimate p_rational;    /* probability that a deal is rational            */
+    cto_range_estimate p_own_binds;   /* probability that own walk-away value binds     */
+    cto_range_estimate p_other_binds; /* ... the other side's                           */
+    cto_range_estimate edge_fraction; /* draws at an edge case (no deal, boundary)      */
+    uint64_t points_per_replicate;    /* n = 2^log2_used                                */
+    int replicates;
+    int log2_used;
+    int dimension;              /* number of uncertain inputs                           */
+} cto_range_outcome;
+
+/*! cto_range_default_options: fills *opt with the defaults (size set). */
+CTO_API void cto_range_default_options(cto_range_options *opt);
+
+/*! cto_share_range: quantiles of own and other's share, their means and the
+ *  probabilities of a rational deal and of each walk-away value binding.
+ *  Status: CTO_OK; CTO_E_PRECISION (every estimate reported with its half-width, some
+ *  own-share quantile short of the digit target at log2_max); CTO_E_INVALID (out->bad
+ *  names the input or option: a low above its high, a mode outside, a probability
+ *  outside (0, 1), a bad option, a NULL pointer or too small a size); CTO_E_INDETERMINATE
+ *  (some draw has no determinate split, e.g. both rates 0 without breakdown risk);
+ *  CTO_E_INTERNAL (memory).  Degenerate ranges (low = high) give the fixed-input result
+ *  exactly.  out is written whenever it is not NULL and out->size is large enough. */
+CTO_API int cto_share_range(const cto_range_input *in, const cto_range_options *opt,
+                            cto_range_outcome *out);
+
+/*! One row of the swing (a tornado chart): own share with one input at its low and at
+ *  its high, the others at their modes (a uniform range's midpoint). */
+typedef struct cto_swing_row {
+    int input;                  /* 0..13                                                */
+    double at_low, at_high;     /* own share at the input's low and high                */
+    double swing;               /* |at_high - at_low|                                   */
+    int status_low, status_high;/* the model's status at each end (ok or no deal)       */
+} cto_swing_row;
+
+typedef struct cto_swing_outcome {
+    size_t size;                /* sizeof(cto_swing_outcome)                            */
+    int status;
+    int bad;
+    double base;                /* own share with every input at its mode               */
+    int base_status;
+    int n_rows;                 /* uncertain inputs, sorted by swing, largest first     */
+    cto_swing_row row[CTO_RANGE_INPUTS];
+} cto_swing_outcome;
+
+/*! cto_share_swing: the one-at-a-time swing of each uncertain input of share_range's
+ *  inputs (one-way sensitivity; Clemen & Reilly 2014 ch.5), sorted by size.  It ignores
+ *  interactions, which share_range's quantiles include.  Status: CTO_OK; CTO_E_INVALID
+ *  (out->bad); CTO_E_INTERNAL.  Added in 1.1. */
+CTO_API int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out);
+
+/* =========================================================================
  * The catalogue as data: one table that drives the wrappers
  * =========================================================================
  * Every function above is described once here: its name, its Calc name, its
@@ -578,6 +780,11 @@ typedef struct cto_output_info {
     const char *name;            /* e.g. "own_share"                                */
     const char *help;            /* one line                                        */
 } cto_output_info;
+
+/* No catalogue function has more arguments or outputs than these (buffers for cto_call
+ * may be sized by them).  Added in 1.1. */
+#define CTO_MAX_ARGS 32
+#define CTO_MAX_OUTPUTS 32
 
 typedef struct cto_function_info {
     size_t size;                 /* sizeof(cto_function_info) of the library        */

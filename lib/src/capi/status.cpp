@@ -11,6 +11,7 @@ CTO_API const char *cto_status_name(int status) {
         case CTO_E_INDETERMINATE: return "indeterminate";
         case CTO_E_NO_CONVERGENCE: return "no_convergence";
         case CTO_E_INTERNAL: return "internal";
+        case CTO_E_PRECISION: return "precision_not_reached";
         default: return "unknown";
     }
 }
@@ -29,6 +30,10 @@ CTO_API const char *cto_status_message(int status) {
         case CTO_E_NO_CONVERGENCE:
             return "the numerical method did not converge: the output is NaN";
         case CTO_E_INTERNAL: return "internal error in the library: the output is NaN";
+        case CTO_E_PRECISION:
+            return "precision not reached: the estimates are reported with their error bars, "
+                   "but some requested quantile is short of the digit target at the largest "
+                   "sample size";
         default: return "unknown status code";
     }
 }

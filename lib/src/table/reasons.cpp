@@ -155,7 +155,7 @@ void copy_out(const Str &s, char *text, size_t size) {
 }  // namespace
 
 int explain(const Row &r, const double *args, char *text, size_t size) {
-    double out[8];
+    double out[CTO_MAX_OUTPUTS];
     int bad = -1;
     const int st = r.thunk(args, out, &bad);
     Str s;

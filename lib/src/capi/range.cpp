@@ -1,0 +1,103 @@
+// cto_share_range, cto_share_swing, cto_range_default_options: the ranges engine
+// (lib/src/range/) behind the public structs.  The public and the core structs have the
+// same layout (checked below), so the entry points copy them whole.
+#include <cstddef>
+#include <cstring>
+#include <type_traits>
+
+#include "../core.hpp"
+#include "../range/rates_model.hpp"
+
+namespace range = cto::core::range;
+
+namespace {
+
+#define CTO_SAME_FIELD(A, B, f) \
+    static_assert(offsetof(A, f) == offsetof(B, f), #A "." #f " differs from the core")
+static_assert(sizeof(cto_range_arg) == sizeof(range::RangeArg), "cto_range_arg");
+static_assert(sizeof(cto_range_input) == sizeof(range::RangeIn), "cto_range_input");
+static_assert(sizeof(cto_range_options) == sizeof(range::RangeOptions), "cto_range_options");
+static_assert(sizeof(cto_range_estimate) == sizeof(range::Estimate), "cto_range_estimate");
+static_assert(sizeof(cto_range_outcome) == sizeof(range::RangeOut), "cto_range_outcome");
+static_assert(sizeof(cto_swing_row) == sizeof(range::SwingRow), "cto_swing_row");
+static_assert(sizeof(cto_swing_outcome) == sizeof(range::SwingOut), "cto_swing_outcome");
+static_assert(CTO_RANGE_INPUTS == range::kRangeSlots && CTO_RANGE_MAX_PROBS == range::kMaxProbs,
+              "range limits");
+static_assert(CTO_E_PRECISION == range::kPrecisionNotReached, "status");
+CTO_SAME_FIELD(cto_range_arg, range::RangeArg, high);
+CTO_SAME_FIELD(cto_range_options, range::RangeOptions, seed);
+CTO_SAME_FIELD(cto_range_options, range::RangeOptions, threads);
+CTO_SAME_FIELD(cto_range_outcome, range::RangeOut, own);
+CTO_SAME_FIELD(cto_range_outcome, range::RangeOut, p_rational);
+CTO_SAME_FIELD(cto_range_outcome, range::RangeOut, points_per_replicate);
+CTO_SAME_FIELD(cto_range_outcome, range::RangeOut, dimension);
+CTO_SAME_FIELD(cto_swing_outcome, range::SwingOut, row);
+static_assert(std::is_trivially_copyable_v<range::RangeOut> &&
+                  std::is_trivially_copyable_v<range::SwingOut>,
+              "copied whole");
+
+// Copies a public struct into its core twin (nothing beyond the caller's size is read).
+template <class Core, class Pub>
+bool load(const Pub *p, Core *c) {
+    if (!p || p->size < sizeof(Pub)) return false;
+    std::memcpy(c, p, sizeof(Core));
+    return true;
+}
+
+}  // namespace
+
+extern "C" {
+
+CTO_API void cto_range_default_options(cto_range_options *opt) {
+    if (!opt) return;
+    const range::RangeOptions d = range::default_options();
+    std::memcpy(opt, &d, sizeof d);
+    opt->size = sizeof *opt;
+}
+
+CTO_API int cto_share_range(const cto_range_input *in, const cto_range_options *opt,
+                            cto_range_outcome *out) {
+    if (!out || out->size < sizeof(cto_range_outcome)) return CTO_E_INVALID;
+    try {
+        range::RangeIn ci;
+        range::RangeOptions co = range::default_options();
+        range::RangeOut r;
+        r.size = sizeof r;
+        const bool in_ok = load(in, &ci), opt_ok = load(opt, &co);
+        if (!in_ok || !opt_ok) {
+            range::clear_range_out(&r, co);
+            r.status = CTO_E_INVALID;
+            r.bad = range::kBadSize;
+        } else {
+            range::share_range(ci, co, &r);
+        }
+        std::memcpy(out, &r, sizeof r);
+        return out->status;
+    } catch (...) {
+        out->status = CTO_E_INTERNAL;
+        return CTO_E_INTERNAL;
+    }
+}
+
+CTO_API int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
+    if (!out || out->size < sizeof(cto_swing_outcome)) return CTO_E_INVALID;
+    try {
+        range::RangeIn ci;
+        range::SwingOut r;
+        r.size = sizeof r;
+        if (!load(in, &ci)) {
+            range::clear_swing_out(&r);
+            r.status = CTO_E_INVALID;
+            r.bad = range::kBadSize;
+        } else {
+            range::share_swing(ci, &r);
+        }
+        std::memcpy(out, &r, sizeof r);
+        return out->status;
+    } catch (...) {
+        out->status = CTO_E_INTERNAL;
+        return CTO_E_INTERNAL;
+    }
+}
+
+}  // extern "C"
