@@ -77,10 +77,13 @@ TEST_CASE("Range engine: the draws of replicate 0 equal the numpy reference", "[
             s.uncertain[j] = a[j].kind != kFixed;
             s.value[j] = a[j].mode;
             if (s.uncertain[j]) s.plan[j] = dist_plan(d);
+            s.n_uncertain += s.uncertain[j] ? 1 : 0;
         }
+        s.prefix_bits = 3;
         ReplicateData d;
         d.own.resize(16);
         d.other.resize(16);
+        d.masks.resize(static_cast<size_t>(s.n_uncertain) << s.prefix_bits);
         extend_replicate(s, 0, 0, 16, &d);
         for (const auto &r : rows) {
             if (r[0] != name) continue;

@@ -2,6 +2,7 @@
 // See engine.hpp for the method and its sources.
 #include "engine.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <memory>
@@ -76,8 +77,19 @@ int build_sampler(const Model &model, const RangeArg *args, int n_slots, uint64_
         s->uncertain[j] = d.kind != kFixed && d.low < d.high;
         s->value[j] = d.kind == kFixed ? d.mode : d.low;
         s->plan[j] = s->uncertain[j] ? dist_plan(d) : DistPlan{};
+        s->n_uncertain += s->uncertain[j] ? 1 : 0;
     }
     return -1;
+}
+
+// The scrambling cache's L: at most 12 digits, no more than the largest sample needs, and
+// at most 32 MiB for all replicates.  A pure cache: results do not depend on it.
+int prefix_bits(const Sampler &s, const RangeOptions &opt) {
+    int L = std::min(12, opt.log2_max);
+    const uint64_t per = static_cast<uint64_t>(opt.replicates) *
+                         static_cast<uint64_t>(std::max(s.n_uncertain, 1)) * sizeof(uint32_t);
+    while (L > 0 && (per << L) > (uint64_t{32} << 20)) --L;
+    return L;
 }
 
 // The model at the modes, and at each uncertain input's low and high with the others at
@@ -184,6 +196,8 @@ bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
 // The doubling loop (C.6 of the design notes).
 int sample(const Sampler &s, const RangeOptions &opt, RangeOut *o) {
     Reps reps(static_cast<size_t>(opt.replicates));
+    for (ReplicateData &d : reps)
+        d.masks.resize(static_cast<size_t>(s.n_uncertain) << s.prefix_bits);
     uint64_t done = 0;
     for (int m = opt.log2_start; m <= opt.log2_max; ++m) {
         const uint64_t n = uint64_t{1} << m;
@@ -237,6 +251,7 @@ int run_range(const Model &model, const RangeArg *args, int n_slots, const Range
         if (st != CTO_OK) return fail(out, st, bad);
         const int bad_opt = check_options(opt);
         if (bad_opt >= 0) return fail(out, CTO_E_INVALID, bad_opt);
+        sp->prefix_bits = prefix_bits(s, opt);
         for (int j = 0; j < n_slots; ++j) out->dimension += s.uncertain[j] ? 1 : 0;
         return sample(s, opt, out);
     } catch (...) {  // std::bad_alloc, std::system_error from std::thread

@@ -15,17 +15,24 @@ void extend_replicate(const Sampler &s, uint64_t r, uint64_t from, uint64_t to,
     uint64_t key[kSobolDims];
     uint32_t x_bits[kSobolDims];
     double x[kSobolDims];
-    for (int j = 0; j < n; ++j) {
+    const int L = s.prefix_bits;
+    const size_t table = size_t{1} << L;
+    const uint32_t *mask[kSobolDims] = {};
+    for (int j = 0, u = 0; j < n; ++j) {
         x[j] = s.value[j];
         if (!s.uncertain[j]) continue;
         key[j] = scramble_key(s.seed, r, static_cast<uint64_t>(j));
         x_bits[j] = sobol_point(from, j);
+        uint32_t *m = d->masks.data() + static_cast<size_t>(u++) * table;
+        if (from == 0) owen_prefix_masks(key[j], L, m);  // the first round builds the cache
+        mask[j] = m;
     }
     for (uint64_t i = from; i < to; ++i) {
         for (int j = 0; j < n; ++j) {
             if (!s.uncertain[j]) continue;
             if (i != from) x_bits[j] ^= sobol_step(i, j);
-            x[j] = dist_quantile(s.plan[j], unit_from_bits(owen_scramble(x_bits[j], key[j])));
+            const uint32_t y = owen_scramble_cached(x_bits[j], key[j], L, mask[j]);
+            x[j] = dist_quantile(s.plan[j], unit_from_bits(y));
         }
         Draw dr{};
         int bad = -1;

@@ -41,12 +41,16 @@ struct Sampler {
     int n_slots;                  // inputs, <= kSobolDims
     uint64_t seed;
     bool uncertain[kSobolDims];   // slot j drawn (low < high) or fixed
+    int n_uncertain;
+    int prefix_bits;              // L of the scrambling cache (scramble.hpp); 0: none
     double value[kSobolDims];     // the value of a fixed slot (a degenerate range: low)
     DistPlan plan[kSobolDims];
 };
 
 struct ReplicateData {
     std::vector<double> own, other;  // the samples (sorted in totalOrder between rounds)
+    std::vector<uint32_t> masks;     // scrambling cache: n_uncertain x 2^prefix_bits, built
+                                     // by the first extend_replicate (sized by the caller)
     Sum own_sum, other_sum;          // in index order
     uint64_t rational = 0, own_binds = 0, other_binds = 0, edge = 0;
     int status = 0;                  // CTO_OK, or the first failing draw's status

@@ -3,17 +3,39 @@
 
 namespace cto::core::range {
 
-uint32_t owen_scramble(uint32_t x, uint64_t key) {
-    const uint64_t x64 = x;
+namespace {
+// The flip of digit k whose k - 1 digits above are `prefix`.
+inline uint64_t flip_bit(uint64_t key, unsigned k, uint64_t prefix) {
+    const uint64_t node = (uint64_t{1} << (k - 1)) | prefix;
+    return mix64(key ^ (node * kGolden)) >> 63;
+}
+
+// The flips of digits first..32 of x, as a mask.
+inline uint32_t tail_flips(uint64_t x64, uint64_t key, unsigned first) {
     uint64_t flips = 0;
-    for (unsigned k = 1; k <= 32; ++k) {
-        // The first k - 1 digits of X, behind a leading 1 that marks the depth k.
-        const uint64_t prefix = k == 1 ? 0 : (x64 >> (33 - k));
-        const uint64_t node = (uint64_t{1} << (k - 1)) | prefix;
-        const uint64_t flip = mix64(key ^ (node * kGolden)) >> 63;
-        flips |= flip << (32 - k);  // digit k is bit 32 - k (bit 31 is the first digit)
-    }
-    return static_cast<uint32_t>(x64 ^ flips);
+    for (unsigned k = first; k <= 32; ++k)
+        flips |= flip_bit(key, k, k == 1 ? 0 : (x64 >> (33 - k))) << (32 - k);
+    return static_cast<uint32_t>(flips);
+}
+}  // namespace
+
+void owen_prefix_masks(uint64_t key, int L, uint32_t *mask) {
+    // Level k holds, for each prefix q of k - 1 digits, the flips of digits 1..k; level
+    // k + 1 is built from it in place, from the top index down (q >> 1 <= q).
+    mask[0] = static_cast<uint32_t>(flip_bit(key, 1, 0) << 31);
+    for (unsigned k = 1; k <= static_cast<unsigned>(L); ++k)
+        for (uint64_t q = (uint64_t{1} << k); q-- > 0;)
+            mask[q] = mask[q >> 1] | static_cast<uint32_t>(flip_bit(key, k + 1, q) << (31 - k));
+}
+
+uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask) {
+    const uint64_t x64 = x;
+    const uint32_t top = mask[L == 0 ? 0 : (x >> (32 - L))];
+    return x ^ top ^ tail_flips(x64, key, static_cast<unsigned>(L) + 2);
+}
+
+uint32_t owen_scramble(uint32_t x, uint64_t key) {
+    return x ^ tail_flips(x, key, 1);
 }
 
 }  // namespace cto::core::range

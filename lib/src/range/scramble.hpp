@@ -38,6 +38,15 @@ inline uint64_t scramble_key(uint64_t seed, uint64_t replicate, uint64_t dim) {
 // Owen-scrambled coordinate Y of the 32-digit coordinate X under `key`.
 uint32_t owen_scramble(uint32_t x, uint64_t key);
 
+// A cache of the same flips: the flips of digits 1..L+1 depend only on the first L digits
+// of X, so they can be computed once per (key, value of the first L digits) and reused by
+// every point.  owen_prefix_masks fills mask[t] for t < 2^L (2^(L+1) - 1 hashes);
+// owen_scramble_cached(x, key, L, mask) == owen_scramble(x, key) for every x, with
+// 31 - L hashes instead of 32.  0 <= L <= kMaxPrefixBits.
+inline constexpr int kMaxPrefixBits = 16;
+void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
+uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask);
+
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
 inline double unit_from_bits(uint32_t y) {
     return (static_cast<double>(y) + 0.5) * 0x1p-32;
