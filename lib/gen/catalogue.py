@@ -62,7 +62,7 @@ class Output:
     name: str
     help: str
     words: Tuple[str, ...] = ()  # a coded output: the word for code 0, 1, ...
-    c_type: str = "double"  # its field's type in a struct outcome ("double" or "int")
+    c_type: str = "double"  # its field's type in a struct outcome: double, int or int64
 
 
 @dataclasses.dataclass(frozen=True)
@@ -188,8 +188,8 @@ def _function(path: pathlib.Path, shared: Dict[str, Arg]) -> Function:
     outputs = tuple(Output(_str(o, "name", path), _str(o, "help", path),
                            tuple(o.get("words", ())), o.get("type", "double"))
                     for o in d.get("output", [])) or (VALUE_OUTPUT,)
-    if any(o.c_type not in ("double", "int") for o in outputs):
-        raise _fail(path, "an output's type is double or int")
+    if any(o.c_type not in ("double", "int", "int64") for o in outputs):
+        raise _fail(path, "an output's type is double, int or int64")
     outcome = d.get("outcome")
     if outcome is not None:
         if set(outcome) != {"c", "core"}:

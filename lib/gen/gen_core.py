@@ -77,7 +77,7 @@ def _thunk(f: Function) -> List[str]:
     lines.append("    const bool failed = st == CTO_E_INVALID || st == CTO_E_INTERNAL;")
     lines.append("    (void)failed;")
     for k, o in enumerate(f.outputs):
-        if o.c_type == "int":
+        if o.c_type in ("int", "int64"):
             lines.append(f"    o[{k}] = failed ? core::kNaN : static_cast<double>(r.{o.name});")
         else:
             lines.append(f"    o[{k}] = r.{o.name};")
@@ -151,7 +151,7 @@ def _signature(f: Function) -> str:
 def _named_struct_body(f: Function, call: List[str]) -> List[str]:
     c_type, core_type = f.outcome
     fields_nan = [f"        out->{o.name} = core::kNaN;" for o in f.outputs if o.c_type == "double"]
-    fields_int = [f"        out->{o.name} = 0;" for o in f.outputs if o.c_type == "int"]
+    fields_int = [f"        out->{o.name} = 0;" for o in f.outputs if o.c_type != "double"]
     copy = [f"        out->{o.name} = r.{o.name};" for o in f.outputs]
     return ([f"    if (!out || out->size < sizeof({c_type})) return CTO_E_INVALID;",
              "    try {",
@@ -164,7 +164,7 @@ def _named_struct_body(f: Function, call: List[str]) -> List[str]:
 def named(functions: List[Function]) -> str:
     out = [HEADER, "// The named C functions: each converts its C types to the core's and calls",
            "// the model, with the guard of lib/src/capi/guard.hpp.",
-           "#include <type_traits>", "", '#include "capi/guard.hpp"', '#include "models.hpp"', "",
+           "#include <type_traits>", "", '#include "capi/adapters.hpp"', '#include "capi/guard.hpp"', '#include "models.hpp"', "",
            "namespace core = cto::core;", "",
            "// Each named function must have exactly the prototype of the public header.",
            ]

@@ -8,6 +8,7 @@
 #include "models/incomplete.hpp"
 #include "models/parties.hpp"
 #include "models/rates.hpp"
+#include "models/offers.hpp"
 #include "models/trade.hpp"
 #include "models/utility.hpp"
 

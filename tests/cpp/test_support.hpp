@@ -44,6 +44,10 @@ inline std::vector<double> base_args(const cto_function_info *f) {
             else if (n == "seller_high") v = 1.0;
             else if (n == "buyer_low") v = 0.25;
             else if (n == "buyer_high") v = 1.25;
+            else if (n == "private_low") v = 0.0;
+            else if (n == "private_high") v = 1.0;
+            else if (n == "offerer_factor") v = 0.9;
+            else if (n == "responder_factor") v = 0.85;
             else if (n == "observed_share") v = 0.55;
             else if (n == "high_value") v = 1.0;
             else if (n == "low_value") v = 0.5;

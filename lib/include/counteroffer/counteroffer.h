@@ -625,6 +625,105 @@ CTO_API int cto_trade_probability(double seller_low, double seller_high, double 
                                   double buyer_high, double k, double *out);
 
 /* =========================================================================
+ * Private information: repeated offers to a side of unknown value
+ * ========================================================================= */
+
+#define CTO_OFFERER_SELLER 0  /* we sell to a buyer of unknown value                   */
+#define CTO_OFFERER_BUYER 1   /* we buy from a seller of unknown cost (procurement)     */
+
+/*! Totals of cto_offer_path.  Set size = sizeof(cto_offer_outcome) before the call;
+ *  fields are only ever appended. */
+typedef struct cto_offer_outcome {
+    size_t size;
+    int regime;                    /* 0 no deal, 1 known value, 2 no gap, 3 gap,
+                                      4 immediate with open timing, 5 closed form       */
+    int reserved;
+    int64_t rounds_used;           /* rounds with a positive chance of agreement; -1: none*/
+    int64_t rows_written;          /* rows written by cto_offer_path_rows               */
+    int64_t stages, pieces;        /* gap case: stage functions and most pieces of one  */
+    double agreement_probability;  /* by the deadline, or ever                          */
+    double expected_round;         /* E[round | agreement]; 1 = the first offer         */
+    double offerer_value;          /* the offerer's expected present value, ex ante     */
+    double responder_value;        /* the responder's expected present value, ex ante   */
+    double opening_offer;          /* the first offer                                   */
+    double last_cutoff;            /* the cutoff type after the last round              */
+} cto_offer_outcome;
+
+/*! One round of cto_offer_path_rows. */
+typedef struct cto_offer_row {
+    double offer;                  /* the price offered in this round                   */
+    double cutoff;                 /* types beyond it (in the responder's favour) have
+                                      agreed by the end of the round                    */
+    double round_probability;      /* P(agreement in this round)                        */
+    double cumulative_probability; /* P(agreement by the end of this round)             */
+} cto_offer_row;
+
+/*! cto_offer_path: repeated offers to a responder of unknown value, the perfect Bayesian
+ *  equilibrium with skimming (higher values agree earlier): Sobel & Takahashi (1983) for
+ *  the finite horizon, Stokey (1981), Fudenberg, Levine & Tirole (1985) and Gul,
+ *  Sonnenschein & Wilson (1986) for no deadline, Fudenberg & Tirole (1991) ch. 10 (all
+ *  from memory); the general-interval forms, the gap algorithm and the mirror case are
+ *  derived in docs/models/private-information.md s.2.
+ *  offerer = seller: a seller of cost c = known_value offers p_1, p_2, ... to a buyer of
+ *  value v ~ U[lo, hi]; agreement in round t pays the seller d_s^(t-1)(p_t - c) and the
+ *  buyer d_b^(t-1)(v - p_t).  offerer = buyer: a buyer of value u = known_value offers to
+ *  a seller of cost c ~ U[lo, hi] (procurement); the same game with money reversed.
+ *  Without a gap (c >= lo; buyer offers: u <= hi), with H = hi - c (u - lo) and L = hi - lo:
+ *      l_1 = m_1 = 1/2;  g_n = 1 - d_b + d_b l_(n-1),  m_n = g_n/(2 g_n - d_s l_(n-1)),
+ *      l_n = g_n m_n;  round t (n = T - t + 1 rounds left): price c + l_n H_(t-1),
+ *      H_t = m_n H_(t-1), cutoff c + H_t  (buyer offers: u - l_n H_(t-1), u - H_t);
+ *  no deadline: m = 1/(1 + sqrt(1 - d_s)), l = (1 - d_b) m/(1 - d_b m), price
+ *  c + l m^(t-1) H, E[round | agreement] = 1/(1 - m), offerer value l H^2/(2L).
+ *  With a gap (c < lo) the stage functions are piecewise polynomial and are built exactly.
+ *  Arguments: private_low <= private_high (money), offerer_factor, responder_factor per
+ *  round in [0, 1], rounds >= 0 (0: no deadline), known_value (money), offerer 0 seller /
+ *  1 buyer; rows: the caller's buffer of `capacity` rows (may be NULL with capacity 0).
+ *  Status: CTO_OK -> totals and min(rounds_used, capacity) rows;
+ *          CTO_E_NO_DEAL (no type gains: hi <= c; buyer offers: lo >= u) -> probabilities
+ *          and values 0, rounds 0, the rest NaN;
+ *          CTO_E_INDETERMINATE (no deadline, no gap, responder_factor = 1 < offerer_factor's
+ *          complement: the price falls to cost at once, timing open) -> offerer value 0,
+ *          responder value E[gain], agreement probability and opening offer (the cost or
+ *          value), the rest NaN, no rows;
+ *          CTO_E_NO_CONVERGENCE (gap: the piecewise recursion exceeded its fixed work
+ *          space) -> NaN;
+ *          CTO_E_INVALID (NaN or infinite money, private_low > private_high (index 1),
+ *          factor outside [0, 1], rounds < 0, offerer not 0 or 1, offerer_factor = 1 with
+ *          no deadline (index 2: the price never falls in finite time), spreads that
+ *          overflow) -> every field NaN.
+ *  Accuracy: relative error <= 1e-14 against 50-digit backward induction
+ *  (tests/reference/private); the finite recursion loses about one ulp a round in the
+ *  late rows.  Cost: O(1) without a deadline, O(rounds) with one (no gap), no allocation.
+ *  cto_offer_path gives the totals; cto_offer_path_rows also the rows per round.
+ *  Added in 1.1. */
+CTO_API int cto_offer_path(double private_low, double private_high, double offerer_factor,
+                           double responder_factor, int64_t rounds, double known_value,
+                           int offerer, cto_offer_outcome *out);
+
+/*! cto_offer_path_rows: cto_offer_path with the rows per round written into rows[0 ..
+ *  capacity) (out->rows_written of them; rows may be NULL with capacity 0).  The totals
+ *  are always complete.  Added in 1.1. */
+CTO_API int cto_offer_path_rows(double private_low, double private_high,
+                                double offerer_factor, double responder_factor,
+                                int64_t rounds, double known_value, int offerer,
+                                cto_offer_row *rows, int64_t capacity, cto_offer_outcome *out);
+
+/*! cto_agreement_probability, cto_expected_agreement_round, cto_opening_offer: totals of
+ *  cto_offer_path as scalar functions (same arguments and statuses; NaN where the
+ *  total has no value).  Added in 1.1. */
+CTO_API int cto_agreement_probability(double private_low, double private_high,
+                                      double offerer_factor, double responder_factor,
+                                      int64_t rounds, double known_value, int offerer,
+                                      double *out);
+CTO_API int cto_expected_agreement_round(double private_low, double private_high,
+                                         double offerer_factor, double responder_factor,
+                                         int64_t rounds, double known_value, int offerer,
+                                         double *out);
+CTO_API int cto_opening_offer(double private_low, double private_high, double offerer_factor,
+                              double responder_factor, int64_t rounds, double known_value,
+                              int offerer, double *out);
+
+/* =========================================================================
  * Ranges under uncertainty: quantiles of the split when inputs are ranges
  * =========================================================================
  * share_range: the combined model from rates (solve_from_rates) with any numeric input

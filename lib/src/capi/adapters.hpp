@@ -47,4 +47,16 @@ inline int solve_thunk(const double *a, double *o, int *bad) {
 
 }  // namespace cto::entry
 
+namespace cto::core {
+
+// offer_path's totals without the rows: the table's and cto_offer_path's model.
+inline int offer_totals(double private_low, double private_high, double offerer_factor,
+                        double responder_factor, int64_t rounds, double known_value,
+                        int offerer, OfferTotals *out, int *bad) {
+    return offer_path(private_low, private_high, offerer_factor, responder_factor, rounds,
+                      known_value, offerer, nullptr, 0, out, bad);
+}
+
+}  // namespace cto::core
+
 #endif  // CTO_CAPI_ADAPTERS_HPP
