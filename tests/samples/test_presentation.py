@@ -10,14 +10,13 @@ that does not fit is clipped out of the PDF, so a missing piece of a cell's text
 cut text); Calc's own text engine through officekit.measure (the width a text needs
 against the width its cell has); the list of colours issue 15 rules out.
 """
-import os
 import re
 import subprocess
 import unicodedata
 
 import pytest
 
-from conftest import ALL_FILES, SAMPLES, SHEETS
+from conftest import ALL_FILES, SHEETS
 from officekit.measure import CELL_PADDING, room, text_size
 from officekit.office import PDF, prop, url
 
