@@ -15,6 +15,7 @@ import uno  # noqa: F401  (makes the com.sun.star modules importable)
 from com.sun.star.sheet.CellFlags import FORMULA
 from com.sun.star.sheet.FormulaResult import STRING
 
+from officekit.measure import CELL_PADDING, text_size
 from officekit.office import ODS, SERVICE, XLSX, prop, url
 
 BANNER = ("Frozen copy, made {when} from {source}: every model result on this sheet is "
@@ -94,7 +95,8 @@ def banner(doc, sheet, text):
     cell.setString(text)
     cell.CellStyle = "CtoBanner"
     rng.merge(True)
-    sheet.Rows.getByIndex(0).Height = 1500
+    _, need = text_size(sheet, doc, text, cell, rng.Size.Width - 2 * CELL_PADDING)
+    sheet.Rows.getByIndex(0).Height = int(need * 1.08) + 200
     for shape, (row, offset) in places:
         pos = shape.Position
         pos.Y = sheet.getCellByPosition(0, row + 1).Position.Y + offset
