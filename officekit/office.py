@@ -1,6 +1,9 @@
 """A headless LibreOffice on a private profile, driven over UNO (python3-uno).
 
-Office(profile) starts soffice on a private pipe and connects.  With deadline=S a
+Office(profile) starts soffice on a private pipe and connects.  It runs on a private
+copy of the profile (a temporary folder, removed by close()), so several offices may
+start from one profile at once (the test parts and the main job share the one profile
+ensure_addin_profile installs) and a run never changes it.  With deadline=S a
 watchdog thread kills soffice's whole process group after S seconds, so a hung
 recalculation ends the UNO call with an exception instead of blocking for ever.
 close() ends the office and returns a list of problems (empty: a clean exit): exit
@@ -8,6 +11,7 @@ status, the watchdog, processes of this office still alive, crash dumps in the
 profile, a crash message in its log.
 """
 import os
+import shutil
 import signal
 import subprocess
 import tempfile
@@ -74,7 +78,13 @@ class Office:
     """One soffice process on `profile`, reached over a private pipe."""
 
     def __init__(self, profile, start_timeout=90.0, deadline=None):
-        self.profile = os.path.abspath(profile)
+        self.source = os.path.abspath(profile)
+        self.tmp = tempfile.mkdtemp(prefix="cto_office_")
+        self.profile = os.path.join(self.tmp, "profile")
+        if os.path.isdir(self.source):
+            shutil.copytree(self.source, self.profile, symlinks=True)
+        else:
+            os.makedirs(self.profile)
         self.pipe = "cto_office_" + uuid.uuid4().hex
         self.timed_out = False
         self.proc = None
@@ -88,6 +98,7 @@ class Office:
         except Exception:
             self._kill()
             self._done.set()
+            shutil.rmtree(self.tmp, ignore_errors=True)
             raise
         self.smgr = self.ctx.ServiceManager
         self.desktop = self.smgr.createInstanceWithContext(
@@ -189,6 +200,7 @@ class Office:
             if word in self.log_text:
                 problems.append("soffice log shows %r: %s" % (word, self.log_text[-2000:]))
                 break
+        shutil.rmtree(self.tmp, ignore_errors=True)
         return problems
 
     def _leftovers(self):

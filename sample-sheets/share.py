@@ -15,6 +15,7 @@ import uno  # noqa: F401  (makes the com.sun.star modules importable)
 from com.sun.star.sheet.CellFlags import FORMULA
 from com.sun.star.sheet.FormulaResult import STRING
 
+from officekit.measure import CELL_PADDING, text_size
 from officekit.office import ODS, SERVICE, XLSX, prop, url
 
 BANNER = ("Frozen copy, made {when} from {source}: every model result on this sheet is "
@@ -82,17 +83,33 @@ def freeze(doc, source, when):
 
 
 def banner(doc, sheet, text):
-    """A first row holding the banner across the used columns."""
+    """A first row holding the banner across the used columns; the charts keep their
+    place against the rows below it (and so stay on their own page)."""
     cur = sheet.createCursor()
     cur.gotoEndOfUsedArea(False)
     last = max(cur.RangeAddress.EndColumn, 4)
+    places = [(shape, anchor_row(sheet, shape)) for shape in sheet.DrawPage]
     sheet.Rows.insertByIndex(0, 1)
     rng = sheet.getCellRangeByPosition(0, 0, last, 0)
     cell = sheet.getCellByPosition(0, 0)
     cell.setString(text)
     cell.CellStyle = "CtoBanner"
     rng.merge(True)
-    sheet.Rows.getByIndex(0).Height = 1500
+    _, need = text_size(sheet, doc, text, cell, rng.Size.Width - 2 * CELL_PADDING)
+    sheet.Rows.getByIndex(0).Height = int(need * 1.08) + 200
+    for shape, (row, offset) in places:
+        pos = shape.Position
+        pos.Y = sheet.getCellByPosition(0, row + 1).Position.Y + offset
+        shape.Position = pos
+
+
+def anchor_row(sheet, shape):
+    """(row whose top is at or above the shape's top, the shape's offset from it)."""
+    y = shape.Position.Y
+    row = 0
+    while sheet.getCellByPosition(0, row + 1).Position.Y <= y:
+        row += 1
+    return row, y - sheet.getCellByPosition(0, row).Position.Y
 
 
 def write_copies(doc, out_dir, base):

@@ -66,8 +66,8 @@ build_core() {
 # installed into one private LibreOffice profile, $CTO_BUILD/addin/profile, which every
 # sheet tool shares.  Sets CTO_ADDIN_BUILD, CTO_OXT and CTO_PROFILE.  Idempotent: the
 # profile is made afresh only when the .oxt differs from the one installed (a checksum
-# beside the profile), so the test parts and the main job install it once.  Two
-# offices must not use one profile at the same time: run the parts one after another.
+# beside the profile), so the test parts and the main job install it once.  Every
+# office starts on a private copy of it (officekit/office.py), so they may run at once.
 ensure_addin_profile() {
   ensure_apt "${CTO_APT_PACKAGES[@]}"
   CTO_ADDIN_BUILD="$CTO_BUILD/addin"

@@ -10,14 +10,13 @@ that does not fit is clipped out of the PDF, so a missing piece of a cell's text
 cut text); Calc's own text engine through officekit.measure (the width a text needs
 against the width its cell has); the list of colours issue 15 rules out.
 """
-import os
 import re
 import subprocess
 import unicodedata
 
 import pytest
 
-from conftest import ALL_FILES, SAMPLES, SHEETS
+from conftest import ALL_FILES, SHEETS
 from officekit.measure import CELL_PADDING, room, text_size
 from officekit.office import PDF, prop, url
 
@@ -150,9 +149,14 @@ def test_no_text_is_cut(book, tmp_path, name):
 
 @pytest.mark.parametrize("name", SHEETS)
 def test_no_cell_text_under_a_chart(book, name):
-    """Charts sit on their own area: no cell with content lies under a chart."""
+    """Charts sit on their own page: every chart starts below the last manual page
+    break, and no cell with content lies under a chart."""
     sh = book(name).Sheets.getByIndex(0)
     ncol, nrow = used(sh)
+    breaks = [b.Position for b in sh.getRowPageBreaks() if b.ManualBreak]
+    assert breaks
+    top = sh.getCellByPosition(0, breaks[-1]).Position.Y
+    assert all(shape.Position.Y >= top for shape in sh.DrawPage)  # only charts here
     for shape in sh.DrawPage:
         x0, y0 = shape.Position.X, shape.Position.Y
         x1, y1 = x0 + shape.Size.Width, y0 + shape.Size.Height

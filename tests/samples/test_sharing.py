@@ -47,6 +47,14 @@ def used(sheet):
     return cur.RangeAddress.EndColumn + 1, cur.RangeAddress.EndRow + 1
 
 
+def charts_below_last_break(sheet):
+    """True when every chart starts at or below the last manual page break."""
+    breaks = [b.Position for b in sheet.getRowPageBreaks() if b.ManualBreak]
+    top = sheet.getCellByPosition(0, breaks[-1]).Position.Y
+    return all(shape.Position.Y >= top for shape in sheet.DrawPage
+               if shape.ShapeType == "com.sun.star.drawing.OLE2Shape")  # charts, not notes
+
+
 def same(a, b):
     """Equal to the 15 significant digits LibreOffice 7.4 writes a number with in ODF
     and OOXML (observed; a half unit in the 15th digit is below 1e-14 relative)."""
@@ -91,6 +99,8 @@ def test_copy_has_the_live_values_and_no_addin_call(book, bare_office, copies, n
                     notes += 1
         assert notes >= 20
         assert sh.Charts.getCount() == live.Charts.getCount()
+        # the charts stay on their own page, under the banner that moved the rows down
+        assert charts_below_last_break(sh)
         cf = sh.getCellRangeByPosition(0, 0, ncol, nrow).ConditionalFormat
         for i in range(cf.getCount()):
             assert not calls_addin(cf.getByIndex(i).Formula1)

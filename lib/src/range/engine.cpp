@@ -131,9 +131,17 @@ void run_round(const Sampler &s, Reps &reps, uint64_t from, uint64_t to, int thr
         work(0);
         return;
     }
+    // A worker that cannot be started (std::system_error, std::bad_alloc) is run by the
+    // calling thread instead: every replicate is still computed exactly once, so the
+    // result is the same, and no joinable thread is ever destroyed.
     std::vector<std::thread> pool;
-    pool.reserve(T - 1);
-    for (size_t w = 1; w < T; ++w) pool.emplace_back(work, w);
+    size_t started = 1;
+    try {
+        pool.reserve(T - 1);
+        for (; started < T; ++started) pool.emplace_back(work, started);
+    } catch (...) {
+    }
+    for (size_t w = started; w < T; ++w) work(w);
     work(0);
     for (std::thread &t : pool) t.join();
 }
