@@ -258,7 +258,8 @@ def definitions_json(functions: List[Function]) -> str:
              "args": [arg(a) for a in f.args],
              "outputs": [{"name": o.name, "help": o.help, "words": list(o.words),
                           "type": o.c_type} for o in f.outputs],
-             "example": {"scenario": f.example_scenario, "python": f.example_python}}
+             "example": {"scenario": f.example_scenario, "python": f.example_python},
+             "reference": f.reference}
             for f in functions]
     return json.dumps({"functions": data}, indent=1, ensure_ascii=False) + "\n"
 

@@ -22,8 +22,12 @@ import pytest
 import counteroffer as co
 from conftest import REFERENCE_DIR
 
+from counteroffer._definitions import definitions
+
 RTOL = 4e-15
-NAMES = [s.name for s in co.catalogue]
+# Functions whose reference table has another layout are checked by their own tests
+# (the definition's `reference`, e.g. tests/cpp/test_trade_reference.cpp).
+NAMES = [s.name for s in co.catalogue if not definitions().get(s.name, {}).get("reference")]
 
 # Rows where the library is known to disagree with its table, each with the issue as
 # reported to the core engineer; keyed by (function, row inputs).  Each is checked to
@@ -108,8 +112,19 @@ def test_reference_table_arrays(name):
             continue
         assert co.status_name(int(statuses[i])) == want_status, (i, r)
         s = scale(spec, r)
-        for out, col in zip(outs, want_cols):
+        for k, (out, col) in enumerate(zip(outs, want_cols)):
             want = float(r[col])
+            if spec.words(k):  # a coded output: the table's code, the package's word
+                words = spec.words(k)  # (a no/yes output is a bool in Python)
+                if math.isnan(want) and words == ("no", "yes"):
+                    # an invalid row: a bool array holds False there; the status array
+                    # (checked above) is what marks the row invalid
+                    assert not out[i], (i, col, r)
+                    continue
+                expect = (None if math.isnan(want) else bool(want) if words == ("no", "yes")
+                          else words[int(want)])
+                assert out[i] == expect, (i, col, r)
+                continue
             g = float(out[i])
             if math.isnan(want):
                 assert math.isnan(g), (i, col, r, g)
