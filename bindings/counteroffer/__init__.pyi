@@ -31,6 +31,12 @@ __all__ = [
     'implied_rate',
     'share_sensitivity',
     'screening_profit',
+    'double_auction',
+    'trade_probability',
+    'agreement_probability',
+    'expected_agreement_round',
+    'opening_offer',
+    'offer_path',
     'ArrayResult',
     'CounterofferError',
     'CounterofferWarning',
@@ -54,6 +60,8 @@ __all__ = [
     'get_num_threads',
     'status_name',
     'status_message',
+    'DoubleAuctionResult',
+    'OfferPathResult',
     'SolveResult',
 ]
 catalogue: Tuple[Any, ...]
@@ -555,6 +563,183 @@ def screening_profit(
     high_prob: _Array,
     seller_factor: _Array,
     buyer_factor: _Array,
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@dataclass(frozen=True)
+class DoubleAuctionResult:
+    trade_probability: float
+    expected_price: float
+    buyer_gain: float
+    seller_gain: float
+    total_gain: float
+    first_best_gain: float
+    first_best_probability: float
+    second_best_gain: float
+    second_best_threshold: float
+    second_best_probability: float
+    efficiency: float
+    second_best_efficiency: float
+    price_low: float
+    price_high: float
+    ask_floor: float
+    bid_ceiling: float
+    regime: Optional[Literal['no trade', 'one price', 'triangle', 'clamped', 'posted ask', 'posted bid']]
+    flags: Optional[int]
+
+@overload
+def double_auction(
+    seller_low: _Real,
+    seller_high: _Real,
+    buyer_low: _Real,
+    buyer_high: _Real,
+    k: _Real = 0.5,
+    *,
+    out: None = None,
+) -> DoubleAuctionResult: ...
+@overload
+def double_auction(
+    seller_low: _Array,
+    seller_high: _Array,
+    buyer_low: _Array,
+    buyer_high: _Array,
+    k: _Array = 0.5,
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@overload
+def trade_probability(
+    seller_low: _Real,
+    seller_high: _Real,
+    buyer_low: _Real,
+    buyer_high: _Real,
+    k: _Real = 0.5,
+    *,
+    out: None = None,
+) -> float: ...
+@overload
+def trade_probability(
+    seller_low: _Array,
+    seller_high: _Array,
+    buyer_low: _Array,
+    buyer_high: _Array,
+    k: _Array = 0.5,
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@overload
+def agreement_probability(
+    private_low: _Real,
+    private_high: _Real,
+    offerer_factor: _Real,
+    responder_factor: _Real,
+    rounds: int = 0,
+    known_value: _Real = 0,
+    offerer: Literal['seller', 'buyer'] = 'seller',
+    *,
+    out: None = None,
+) -> float: ...
+@overload
+def agreement_probability(
+    private_low: _Array,
+    private_high: _Array,
+    offerer_factor: _Array,
+    responder_factor: _Array,
+    rounds: _Array = 0,
+    known_value: _Array = 0,
+    offerer: Union[Literal['seller', 'buyer'], _Array] = 'seller',
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@overload
+def expected_agreement_round(
+    private_low: _Real,
+    private_high: _Real,
+    offerer_factor: _Real,
+    responder_factor: _Real,
+    rounds: int = 0,
+    known_value: _Real = 0,
+    offerer: Literal['seller', 'buyer'] = 'seller',
+    *,
+    out: None = None,
+) -> float: ...
+@overload
+def expected_agreement_round(
+    private_low: _Array,
+    private_high: _Array,
+    offerer_factor: _Array,
+    responder_factor: _Array,
+    rounds: _Array = 0,
+    known_value: _Array = 0,
+    offerer: Union[Literal['seller', 'buyer'], _Array] = 'seller',
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@overload
+def opening_offer(
+    private_low: _Real,
+    private_high: _Real,
+    offerer_factor: _Real,
+    responder_factor: _Real,
+    rounds: int = 0,
+    known_value: _Real = 0,
+    offerer: Literal['seller', 'buyer'] = 'seller',
+    *,
+    out: None = None,
+) -> float: ...
+@overload
+def opening_offer(
+    private_low: _Array,
+    private_high: _Array,
+    offerer_factor: _Array,
+    responder_factor: _Array,
+    rounds: _Array = 0,
+    known_value: _Array = 0,
+    offerer: Union[Literal['seller', 'buyer'], _Array] = 'seller',
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@dataclass(frozen=True)
+class OfferPathResult:
+    agreement_probability: float
+    expected_round: float
+    opening_offer: float
+    offerer_value: float
+    responder_value: float
+    last_cutoff: float
+    rounds_used: Optional[int]
+    regime: Optional[Literal['no deal', 'known value', 'no gap', 'gap', 'immediate, timing open', 'closed form']]
+    rows_written: Optional[int]
+    stages: Optional[int]
+    pieces: Optional[int]
+
+@overload
+def offer_path(
+    private_low: _Real,
+    private_high: _Real,
+    offerer_factor: _Real,
+    responder_factor: _Real,
+    rounds: int = 0,
+    known_value: _Real = 0,
+    offerer: Literal['seller', 'buyer'] = 'seller',
+    *,
+    out: None = None,
+) -> OfferPathResult: ...
+@overload
+def offer_path(
+    private_low: _Array,
+    private_high: _Array,
+    offerer_factor: _Array,
+    responder_factor: _Array,
+    rounds: _Array = 0,
+    known_value: _Array = 0,
+    offerer: Union[Literal['seller', 'buyer'], _Array] = 'seller',
     *,
     out: Any = None,
 ) -> Any: ...
