@@ -23,7 +23,8 @@ from layout import Sheet
 
 HERE = os.path.dirname(os.path.abspath(__file__))
 MUTHOO = "Muthoo (1999): Bargaining Theory with Applications, Cambridge University Press."
-BIND_WORDS = '"neither";"ours";"theirs";"both"'
+# DEALSOLVEOUTCOME's third column is the library's word for the walk-away value that
+# binds: none, ours, theirs or both (cto_output_word; addin/README.md).
 
 
 def money(ref):
@@ -100,8 +101,7 @@ def synergy_results(s):
         s.put(c + "24", "=DEALSOLVE(%s;TRUE())-DEALSOLVE(%s;FALSE())" % (own, own),
               "CtoMoney")
         s.put(c + "25", "=DEALDELAYCOST(%s36;%s21;%s15;%s17)" % ((c,) * 4), "CtoMoney")
-        s.put(c + "26", '=CHOOSE(INDEX(DEALSOLVEOUTCOME(%s;$B$9);1;3)+1;%s)'
-              % (own, BIND_WORDS), "CtoWord")
+        s.put(c + "26", '=INDEX(DEALSOLVEOUTCOME(%s;$B$9);1;3)' % own, "CtoWord")
         s.put(c + "27", "=DEALSHARERATE($B$8;%s13;%s14;$B$7;$B$9;$B$10)" % (c, c),
               "CtoMoney")
         s.put(c + "28", '=DEALSENSITIVITY($B$8;%s13;%s14;"own";$B$7;$B$9;$B$10)/100'
@@ -111,8 +111,8 @@ def synergy_results(s):
         s.put(c + "35", "=DEALFACTOR($B$8;%s14;$B$10)" % c, "CtoFactor")
         s.put(c + "36", "=DEALFACTOR(%s13;%s14;$B$10)" % (c, c), "CtoFactor")
     # the identity beside the two rows it joins (BRW 1986; REFERENCE s.10)
-    s.merged("E22:E26", '=IF(COUNTIF(B26:D26;"neither")=0;"";"Rows 23 and 24 are equal '
-             'by the model where no walk-away binds ("&COUNTIF(B26:D26;"neither")&" of 3 '
+    s.merged("E22:E26", '=IF(COUNTIF(B26:D26;"none")=0;"";"Rows 23 and 24 are equal '
+             'by the model where no walk-away binds ("&COUNTIF(B26:D26;"none")&" of 3 '
              'here): the responder is offered exactly what waiting is worth, so what we '
              'lose by one round of delay is what we gain by opening.")', "CtoReading",
              fit=False)
@@ -182,8 +182,8 @@ def supply_headline(s, fo, ft):
     s.put("A21", "Our share, % of the contract value")
     s.put("B21", "=B19/B7", "CtoPercent")
     s.put("A22", "Walk-away value that binds")
-    s.put("B22", '=CHOOSE(INDEX(DEALSOLVEOUTCOME(%s;%s;0;0;0;B10;B11;B12;B13;B7;B14);1;3)'
-          '+1;%s)' % (fo, ft, BIND_WORDS), "CtoWord")
+    s.put("B22", '=INDEX(DEALSOLVEOUTCOME(%s;%s;0;0;0;B10;B11;B12;B13;B7;B14);1;3)'
+          % (fo, ft), "CtoWord")
     s.put("A23", "Our share if neither side had status-quo income (EUR m)")
     s.put("B23", "=DEALOUTSIDE(%s;%s;B12;B13;B7;B14)" % (fo, ft), "CtoMoney")
     s.put("A24", "Effect of both sides' status-quo income on our share (EUR m)")
@@ -210,8 +210,7 @@ def supply_table(s, last):
         s.put("D%d" % r, "=DEALSOLVE(%s;FALSE())" % oth, "CtoMoney")
         s.put("E%d" % r, "=DEALSOLVE(%s;TRUE())" % oth, "CtoMoney")
         s.put("F%d" % r, "=B%d-C%d" % (r, r), "CtoMoney")
-        s.put("G%d" % r, '=CHOOSE(INDEX(DEALSOLVEOUTCOME(%s;TRUE());1;3)+1;%s)'
-              % (own, BIND_WORDS), "CtoWord")
+        s.put("G%d" % r, '=INDEX(DEALSOLVEOUTCOME(%s;TRUE());1;3)' % own, "CtoWord")
     reading = (
         '="Reading the table: columns 2 and 4 add up to the contract value by the model, '
         'as do columns 3 and 5."&IF(COUNTIF(G28:G%d;"ours")=0;"";" Where our walk-away '

@@ -6,7 +6,8 @@ text shown when the cell is chosen and printed beside it; the input check guards
 cells and implausible values (a rate typed as 8 instead of 8%: above 1 = 100 % a year;
 days between offers above 3650; a breakdown risk above 0.5 a round).  Results appear
 only when the check is OK; where the model gives no number, the column beside the
-result says why, from the add-in's error value (addin/README.md "Error values").
+result says why, in the library's words (DEALREASON; addin/README.md "Why a cell
+fails").
 """
 from layout import OK_TEXT, Sheet
 
@@ -50,10 +51,9 @@ CHECKS = [
     ("B11<=3650.0", "days between offers above 3650 (ten years): check the unit"),
     ("B12<=0.5", "a breakdown risk above 0.5 a round: type 5% or 0.05, not 5"),
 ]
-REASON = ('IF(ISERROR(%s);CHOOSE(MATCH(ERRORTYPE(%s);{32767;502;503;523};0);'
-          '"no deal: the walk-away and status-quo values add up to more than the deal '
-          'is worth";"an input is outside the model\'s domain";"no single answer: '
-          'neither side loses anything by waiting";"the model did not converge");"")')
+# The library's reason in words (DEALREASON, cto_explain: addin/README.md "Why a cell
+# fails"), shown beside a result unless it is a plain "<function>: ok".
+REASON = 'IF(DEALREASON(%s)="%s: ok";"";DEALREASON(%s))'
 NOTES = [
     "Shares: alternating offers with breakdown risk, status-quo income (inside options) "
     "and walk-away options, solved exactly (DEALSOLVE): Rubinstein (1982) Econometrica "
@@ -88,23 +88,31 @@ def results(s):
     fo, ft = "B31", "B32"
     own = "%s;%s;B12;B13;B14;B15;B16;B13;B14;B8" % (fo, ft)
     oth = "%s;%s;B12;B14;B13;B16;B15;B14;B13;B8" % (ft, fo)
+    ours = '"DEALSOLVE";%s;B17' % own
     s.heading(21, "Results (EUR m unless stated)")
-    s.put("C21", "Why there is no number", "CtoHeading")
+    s.put("C21", "What the model says (when not plain ok)", "CtoHeading")
     rows = [
-        (22, "Our share of the value (EUR m)", "DEALSOLVE(%s;B17)" % own, "CtoMoney"),
-        (23, "Their share of the value (EUR m)", "DEALSOLVE(%s;NOT(B17))" % oth, "CtoMoney"),
-        (24, "Our share, % of the value", "B22/B8", "CtoPercent"),
-        (25, "Walk-away value that binds", 'CHOOSE(INDEX(DEALSOLVEOUTCOME(%s;B17);1;3)+1;'
-         '"neither";"ours";"theirs";"both")' % own, "CtoWord"),
+        (22, "Our share of the value (EUR m)", "DEALSOLVE(%s;B17)" % own, "CtoMoney", ours),
+        (23, "Their share of the value (EUR m)", "DEALSOLVE(%s;NOT(B17))" % oth, "CtoMoney",
+         '"DEALSOLVE";%s;NOT(B17)' % oth),
+        (24, "Our share, % of the value", "B22/B8", "CtoPercent", None),
+        (25, "Walk-away value that binds", "INDEX(DEALSOLVEOUTCOME(%s;B17);1;3)" % own,
+         "CtoWord", None),
         (26, "Our expected loss if agreement slips one round (EUR m)",
-         "DEALDELAYCOST(%s;B22;B12;B13)" % fo, "CtoMoney"),
+         "DEALDELAYCOST(%s;B22;B12;B13)" % fo, "CtoMoney",
+         '"DEALDELAYCOST";%s;B22;B12;B13' % fo),
         (27, "First-mover advantage: opening minus responding (EUR m)",
-         "DEALSOLVE(%s;TRUE())-DEALSOLVE(%s;FALSE())" % (own, own), "CtoMoney"),
+         "DEALSOLVE(%s;TRUE())-DEALSOLVE(%s;FALSE())" % (own, own), "CtoMoney",
+         '"DEALSOLVE";%s;NOT(B17)' % own),
     ]
-    for r, label, formula, style in rows:
+    for r, label, formula, style, why in rows:
         s.put("A%d" % r, label)
         s.put("B%d" % r, '=IF(%s;%s;"")' % (ok, formula), style)
-        s.put("C%d" % r, "=" + REASON % ("B%d" % r, "B%d" % r), "CtoHelp")
+        if why:
+            reason = REASON % (why, why.split(";")[0].strip('"'), why)
+            if "B22" in why:  # an error in B22 would pass on: row 22 says why
+                reason = 'IF(ISERROR(B22);"see our share";%s)' % reason
+            s.put("C%d" % r, '=IF(%s;%s;"")' % (ok, reason), "CtoHelp")
     s.heading(30, "Details: per-round discount factors (1 = delay costs nothing)")
     s.put("A31", "Our per-round discount factor")
     s.put("B31", '=IF(%s;DEALFACTOR(B9;B11;B18);"")' % ok, "CtoFactor")

@@ -586,7 +586,7 @@ class DoubleAuctionResult:
     ask_floor: float
     bid_ceiling: float
     regime: Optional[Literal['no trade', 'one price', 'triangle', 'clamped', 'posted ask', 'posted bid']]
-    flags: float
+    flags: Optional[int]
 
 @overload
 def double_auction(
@@ -713,11 +713,11 @@ class OfferPathResult:
     offerer_value: float
     responder_value: float
     last_cutoff: float
-    rounds_used: float
+    rounds_used: Optional[int]
     regime: Optional[Literal['no deal', 'known value', 'no gap', 'gap', 'immediate, timing open', 'closed form']]
-    rows_written: float
-    stages: float
-    pieces: float
+    rows_written: Optional[int]
+    stages: Optional[int]
+    pieces: Optional[int]
 
 @overload
 def offer_path(

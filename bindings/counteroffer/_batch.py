@@ -149,8 +149,13 @@ def _output_cells(spec: FunctionSpec, outs: List[List[float]], i: int, decimal: 
     cells = []
     for k, values in enumerate(outs):
         words = spec.words(k)
-        cells.append(_present.cell(words, values[i]) if words
-                     else format_number(values[i], decimal))
+        if words:
+            cells.append(_present.cell(words, values[i]))
+        elif spec.is_count(k):
+            n = _present.whole(values[i])
+            cells.append("" if n is None else str(n))
+        else:
+            cells.append(format_number(values[i], decimal))
     return cells
 
 

@@ -82,7 +82,7 @@ def _returns(spec: FunctionSpec) -> List[str]:
     )
     for k, (name, help_) in enumerate(spec.outputs):
         lines.append(_wrap(f"{name}: {help_}."))
-        shown = _present.legend(name, spec.words(k))
+        shown = _present.legend(name, spec.words(k), spec.is_count(k))
         if shown:
             lines.append(_wrap(f"Shown in Python as follows: {shown}."))
     return lines

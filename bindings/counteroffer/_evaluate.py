@@ -272,4 +272,5 @@ def evaluate(spec: FunctionSpec, fn: Any, values: Tuple[Any, ...], out: Any,
 def _scalar_result(spec: FunctionSpec, outs: Sequence[float], result_cls: Optional[type]) -> Any:
     if result_cls is None:
         return float(outs[0])
-    return result_cls(*(_present.scalar(spec.words(k), v) for k, v in enumerate(outs)))
+    return result_cls(*(_present.scalar(spec.words(k), v, spec.is_count(k))
+                        for k, v in enumerate(outs)))

@@ -9,6 +9,7 @@ scalars and arrays, DataFrames, the command line, Calc).  An output whose words 
 
 from __future__ import annotations
 
+import math
 import sys
 from typing import Any, FrozenSet, Optional, Sequence
 
@@ -32,8 +33,11 @@ def is_flag(words: Sequence[str]) -> bool:
     return tuple(words) == FLAG_WORDS
 
 
-def legend(name: str, words: Sequence[str]) -> Optional[str]:
+def legend(name: str, words: Sequence[str], count: bool = False) -> Optional[str]:
     """One line on how output `name` is shown in Python, or None for a plain number."""
+    if count:
+        return (f"{name} is a whole number: an int in a scalar result (None where "
+                "undefined), float64 in arrays")
     if not words:
         return None
     if is_flag(words):
@@ -49,8 +53,17 @@ def _word(words: Sequence[str], value: float) -> Optional[str]:
     return words[int(value)]
 
 
-def scalar(words: Sequence[str], value: float) -> Any:
+def whole(value: float) -> Optional[int]:
+    """A whole-number output (a count of rounds) as an int, None where undefined."""
+    if value != value or value in (math.inf, -math.inf) or value != int(value):
+        return None
+    return int(value)
+
+
+def scalar(words: Sequence[str], value: float, count: bool = False) -> Any:
     """One output of a scalar call as Python shows it."""
+    if count:
+        return whole(value)
     if not words:
         return float(value)
     if is_flag(words):

@@ -59,7 +59,9 @@ def result_class(spec: FunctionSpec) -> Optional[type]:
     fields: List[Tuple[str, Any]] = []
     for k, name in enumerate(spec.output_names):
         words = spec.words(k)
-        if not words:
+        if spec.is_count(k):
+            fields.append((name, Optional[int]))
+        elif not words:
             fields.append((name, float))
         elif _present.is_flag(words):
             fields.append((name, bool))

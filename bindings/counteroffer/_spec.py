@@ -14,6 +14,7 @@ import math
 from typing import Any, Dict, List, Optional, Tuple
 
 from . import _core
+from ._definitions import definitions
 from ._present import absent_names
 
 
@@ -90,6 +91,8 @@ class FunctionSpec:
     overrides: Dict[str, Any]
     #: per output, the words of its codes (cto_output_word), empty for a number
     output_words: Tuple[Tuple[str, ...], ...] = ()
+    #: per output, its C type in the definition: "double", "int" or "int64"
+    output_types: Tuple[str, ...] = ()
 
     def default(self, arg: ArgSpec) -> Any:
         """The argument's Python default (as in the signature)."""
@@ -124,12 +127,22 @@ class FunctionSpec:
         """The words of output k's codes, empty when it is a number."""
         return self.output_words[k] if k < len(self.output_words) else ()
 
+    def is_count(self, k: int) -> bool:
+        """Output k is a whole number (an int field in the C outcome), not a code."""
+        return (k < len(self.output_types) and self.output_types[k] in ("int", "int64")
+                and not self.words(k))
+
 
 def _arg(fid: int, j: int, a: Dict[str, Any]) -> ArgSpec:
     found = _core.arg_plausible_range(fid, j)
     return ArgSpec(a["name"], a["label"], a["help"], a["kind"], a["has_default"], a["default"],
                    a["min_count"], tuple(a["choices"]),
                    None if found is None else (float(found[0]), float(found[1])))
+
+
+def _output_types(name: str, n: int) -> Tuple[str, ...]:
+    outs = definitions().get(name, {}).get("outputs", [])
+    return tuple(str(o.get("type", "double")) for o in outs) if len(outs) == n else ()
 
 
 def load_specs() -> List[FunctionSpec]:
@@ -146,6 +159,7 @@ def load_specs() -> List[FunctionSpec]:
                 tuple((o["name"], o["help"]) for o in row["outputs"]),
                 overrides,
                 tuple(tuple(o["words"]) for o in row["outputs"]),
+                _output_types(row["name"], len(row["outputs"])),
             )
         )
     return specs

@@ -158,7 +158,7 @@ def _section(spec: FunctionSpec) -> List[str]:
     lines.append("Outputs:")
     lines.append("")
     for k, (name, help_) in enumerate(spec.outputs):
-        shown = _present.legend(name, spec.words(k))
+        shown = _present.legend(name, spec.words(k), spec.is_count(k))
         lines.append(f"- `{name}`: {help_}" + (f". In Python: {shown}." if shown else ""))
     lines += ["", f"Statuses: {spec.statuses}.", ""]
     return lines

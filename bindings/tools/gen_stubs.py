@@ -117,7 +117,8 @@ def render() -> str:
             chunks.append(f"class {result.__name__}:")
             for k, name in enumerate(spec.output_names):
                 words = spec.words(k)
-                t = "float" if not words else "bool" if is_flag(words) else (
+                t = "Optional[int]" if spec.is_count(k) else "float" if not words else (
+                    "bool" if is_flag(words) else
                     "Optional[Literal[" + ", ".join(map(repr, words)) + "]]")
                 chunks.append(f"    {name}: {t}")
             chunks.append("")

@@ -90,3 +90,22 @@ def test_out_keeps_the_codes_the_caller_asked_for():
     outs = tuple(np.empty(2) for _ in range(4))
     r = co.solve([0.9, 0.9], 0.9, other_outside=[0.5, 0.3], out=outs)
     assert r["binding"] is outs[2] and outs[2].tolist() == [_core.BINDS_OTHER, _core.BINDS_NONE]
+
+
+def test_whole_number_outputs_are_ints_in_scalar_results_and_on_the_command_line():
+    # offer_path with a two-offer deadline: agreement can come in round 1 or 2, so the
+    # path uses 2 rounds (the game itself: at most `rounds` offers are made)
+    import csv
+    import io
+
+    from counteroffer import _cli
+
+    r = co.offer_path(0, 1e6, 0.9, 0.9, rounds=2)
+    assert r.rounds_used == 2 and type(r.rounds_used) is int
+    counts = [k for k in range(len(co.offer_path.spec.outputs)) if co.offer_path.spec.is_count(k)]
+    assert co.offer_path.spec.output_names.index("rounds_used") in counts
+    out = io.StringIO()
+    _cli.run(["-f", "offer_path"], stdin=io.StringIO(
+        "private_low,private_high,offerer_factor,responder_factor,rounds\n0,1e6,0.9,0.9,2\n"),
+        stdout=out, stderr=io.StringIO())
+    assert next(csv.DictReader(io.StringIO(out.getvalue())))["rounds_used"] == "2"

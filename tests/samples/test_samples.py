@@ -33,9 +33,9 @@ sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), ".."
 from oracles import stationary_shares  # noqa: E402
 
 REL = 1e-12
-# the sheets say "neither" where the library says none (its words for binding were
-# own/other before 1.1, ours/theirs since: cto_output_word)
-BIND = {"none": "neither", "own": "ours", "other": "theirs", "ours": "ours",
+# The sheets show the library's words for the walk-away value that binds (none, ours,
+# theirs, both: cto_output_word); the package said own/other before 1.1.
+BIND = {"none": "none", "own": "ours", "other": "theirs", "ours": "ours",
         "theirs": "theirs", "both": "both"}
 
 
@@ -209,7 +209,7 @@ def test_synergy_independent_references(book):
         assert close(c.v(col + "20"), x_open if opens else x_resp, rel=1e-11)
         assert close(c.v(col + "20") + c.v(col + "21"), S)
         assert close(c.v(col + "24"), x_open - x_resp, rel=1e-9, absolute=1e-10)
-        if c.s(col + "26") == "neither":
+        if c.s(col + "26") == "none":
             # the responder is offered exactly the value of waiting (BRW 1986; REFERENCE
             # s.10), so the opener's loss from one round of delay is the first-mover
             # advantage: p (x - w) + (1 - p)(1 - d) x = x - (p w + (1 - p) d x)
@@ -331,7 +331,7 @@ def test_supply_inside_option_edit(book):
     assert close(c.v("B19"), x0, absolute=1e-11)
     c.set("B12", 0)  # walk-away values too small to bind
     c.set("B13", 0)
-    assert c.s("B22") == "neither"
+    assert c.s("B22") == "none"
     fo = co.round_factor(c.v("B8"), c.v("B15"), c.v("B16"))
     ft = co.round_factor(c.v("B9"), c.v("B15"), c.v("B16"))
     x1 = c.v("B19")

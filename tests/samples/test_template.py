@@ -19,9 +19,9 @@ import build_template
 import run_samples
 
 REL = 1e-12
-# the sheets say "neither" where the library says none (its words for binding were
-# own/other before 1.1, ours/theirs since: cto_output_word)
-BIND = {"none": "neither", "own": "ours", "other": "theirs", "ours": "ours",
+# The sheets show the library's words for the walk-away value that binds (none, ours,
+# theirs, both: cto_output_word); the package said own/other before 1.1.
+BIND = {"none": "none", "own": "ours", "other": "theirs", "ours": "ours",
         "theirs": "theirs", "both": "both"}
 EMPTY = "an input cell is empty (Calc would read it as 0)"
 # A fictional deal of our own.
@@ -161,16 +161,25 @@ def test_limits_are_the_library_plausible_ranges(template):
 
 def test_no_deal_says_why(template):
     """Walk-away values worth more together than the deal: the model has no deal
-    (addin/README.md: #N/A, code 32767); the column beside says so in words and the
-    conclusion repeats it, with no number."""
+    (addin/README.md: #N/A, code 32767); the column beside gives the library's reason
+    in words (DEALREASON, cto_explain) and the conclusion repeats it, with no number."""
     t = template
     t.fill(DEAL)
     t.fill({"B13": 50.0, "B14": 45.0})
     assert t.check() == run_samples.OK_TEXT
     assert t.cell("B22").getError() == 32767
     why = t.cell("C22").getString()
-    assert why.startswith("no deal: the walk-away and status-quo values")
+    assert why.startswith("DEALSOLVE: no rational deal"), why
+    assert "80" in why  # the surplus it names
+    assert t.cell("C26").getString() == "see our share"
     assert t.conclusion() == "No number from the model for Orrin Castings: " + why
+
+
+def test_reason_column_is_empty_when_the_model_is_fine(template):
+    """With plausible inputs the library's reason is plain ok: nothing is shown."""
+    t = template
+    t.fill(DEAL)
+    assert [t.cell("C%d" % r).getString() for r in range(22, 28)] == [""] * 6
 
 
 def test_main_job_ships_the_blank_template(office, tmp_path):

@@ -28,10 +28,18 @@ void owen_prefix_masks(uint64_t key, int L, uint32_t *mask) {
             mask[q] = mask[q >> 1] | static_cast<uint32_t>(flip_bit(key, k + 1, q) << (31 - k));
 }
 
-uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask) {
-    const uint64_t x64 = x;
+uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask,
+                              Simd simd) {
     const uint32_t top = mask[L == 0 ? 0 : (x >> (32 - L))];
-    return x ^ top ^ tail_flips(x64, key, static_cast<unsigned>(L) + 2);
+    const unsigned first = static_cast<unsigned>(L) + 2;
+    uint32_t tail;
+    if (simd == Simd::kScalar || !scramble_tail_avx2(x, key, first, &tail))
+        tail = tail_flips(x, key, first);
+    return x ^ top ^ tail;
+}
+
+uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask) {
+    return owen_scramble_cached(x, key, L, mask, Simd::kAuto);
 }
 
 uint32_t owen_scramble(uint32_t x, uint64_t key) {

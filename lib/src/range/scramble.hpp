@@ -47,6 +47,14 @@ inline constexpr int kMaxPrefixBits = 16;
 void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
 uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask);
 
+// The flips of digits first..32 (first >= 2) with AVX2 (scramble_simd.cpp): returns false
+// (and writes nothing) when the CPU lacks AVX2; else the same bits as the scalar loop.
+bool scramble_tail_avx2(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
+
+// Whether owen_scramble_cached may use the AVX2 path (tests switch it off to compare).
+enum class Simd { kAuto, kScalar };
+uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask, Simd simd);
+
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
 inline double unit_from_bits(uint32_t y) {
     return (static_cast<double>(y) + 0.5) * 0x1p-32;
