@@ -30,7 +30,8 @@
 //
 // Work space: fixed arrays on the stack (about 220 KB).  The oldest stages are dropped
 // when it is full; a path that needs a dropped stage, a stage with more than kMaxPieces
-// pieces, or more than kMaxBuilt stages reports no convergence.
+// pieces, more than kMaxBuilt stages or more than kMaxWork candidate evaluations (a gap
+// that is tiny against the highest gain, with a patient offerer) reports no convergence.
 #include <algorithm>
 #include <cmath>
 
@@ -46,6 +47,7 @@ constexpr int kMaxCand = 4 * kMaxPieces;
 constexpr int kSlots = 400;        // stages kept (the oldest are dropped first)
 constexpr int64_t kMaxBuilt = 20000;    // stages built before giving up
 constexpr int64_t kMaxRounds = 1000000;  // rounds of a path without a deadline
+constexpr int64_t kMaxWork = 200000000;  // candidate evaluations (about 0.3 s) per call
 
 struct Piece {
     double r;        // right end; the left end is the previous piece's r (or a)
@@ -68,6 +70,7 @@ struct Work {
     int slots = 0;
     int64_t first_n = 1, last_n = 0;  // stages kept: first_n .. last_n
     int64_t widest = 0;               // most pieces in a stage built
+    int64_t work = 0;                 // candidate evaluations so far
     Cand cand[kMaxCand];
     double ev[2 * kMaxCand + 2];
     Piece next[kMaxPieces + 1];
@@ -215,6 +218,8 @@ bool build_stage(Work &w) {
         if (!(u1 > u0)) continue;
         double k = u0;
         for (int guard = 0; guard < 4 * kMaxCand; ++guard) {
+            w.work += 2 * m;
+            if (w.work > kMaxWork) return false;
             const int b = best_at(w, m, k, u1);
             if (b < 0) return false;
             const double next = overtaken(w, m, b, k, u1);
