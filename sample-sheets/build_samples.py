@@ -18,6 +18,7 @@ import sys
 
 from officekit.office import Office
 
+import build_private
 import build_template
 from layout import Sheet
 
@@ -387,6 +388,7 @@ def licence(office, path):
 
 TEMPLATES = [("synergy_split.fods", synergy), ("supply_renegotiation.fods", supply),
              ("licence_deadline.fods", licence),
+             ("licence_unknown_value.fods", build_private.licence_private),
              ("deal_template.fods", build_template.template)]
 
 

@@ -138,10 +138,10 @@ class Sheet:
         return self.merged("%s%d:%s%d" % (first, row, self.last_col, row), value, style)
 
     # ---- the blocks of a sheet -------------------------------------------------------
-    def header(self, title, scenario, fiction=True):
+    def header(self, title, scenario, fiction=True, caution=CAUTION_SHORT):
         self.wide(1, title, "CtoTitle")
         self.wide(2, scenario + (" " + FICTION if fiction else ""), "CtoSubtitle")
-        self.wide(3, CAUTION_SHORT, "CtoCaution")
+        self.wide(3, caution, "CtoCaution")
         self.wide(4, HOWTO, "CtoSubtitle")
 
     def conclusion(self, formula, row=5):
@@ -186,12 +186,13 @@ class Sheet:
             need = max(need, int(h * 1.08) + 120)
         self.row_height(row, need)
 
-    def notes(self, row, lines):
-        """Method and sources: one wrapped line per entry, then the caution."""
+    def notes(self, row, lines, caution=CAUTION):
+        """Method and sources: one wrapped line per entry, then the caution (each sheet
+        may state its own assumptions in it)."""
         self.heading(row, "Method and sources")
         for i, text in enumerate(lines):
             self.wide(row + 1 + i, text, "CtoNote")
-        self.wide(row + 1 + len(lines), CAUTION, "CtoCaution")
+        self.wide(row + 1 + len(lines), caution, "CtoCaution")
         return row + 2 + len(lines)
 
     def input_check(self, row, blank_ranges, checks=()):

@@ -37,6 +37,7 @@ PALETTE = (INK, SLATE, TITLE, RULE, HEAD, INPUT, INPUT_RULE, BEST, ALARM, WHITE,
 MONEY = "#,##0.00"
 PCT = "0.0%"
 FACTOR = "0.0000"
+DECIMAL = "0.00"
 WHOLE = "0"
 BOOL = "BOOLEAN"
 
@@ -77,6 +78,7 @@ STYLES = {
     "CtoMoney": dict(parent="CtoText", NumberFormat=MONEY),
     "CtoPercent": dict(parent="CtoText", NumberFormat=PCT),
     "CtoFactor": dict(parent="CtoText", NumberFormat=FACTOR),
+    "CtoDecimal": dict(parent="CtoText", NumberFormat=DECIMAL),
     "CtoWhole": dict(parent="CtoText", NumberFormat=WHOLE),
     "CtoWord": dict(parent="CtoText", HoriJustify="RIGHT"),
     "CtoCheck": dict(parent="CtoText", CharWeight=BOLD, HoriJustify="LEFT"),

@@ -68,6 +68,13 @@ def expected_conclusion(name, v, s):
                 "%s EUR m." % ("{:,.2f}".format(v("B19")), "{:,.2f}".format(v("B7")),
                                100 * v("B21"), "we" if v("B14") else "they", v("B15"),
                                s("B22"), "{:,.2f}".format(v("B24"))))
+    if name == "licence_unknown_value.fods":
+        return ("Open at %s EUR m: with %d offers before the deadline the licence is signed "
+                "with a %.0f%% chance, after %s days on average if signed; if our "
+                "reservation value is private too, private information costs %s of %s "
+                "EUR m of gains." % ("{:,.2f}".format(v("B21")), v("B14"), 100 * v("B22"),
+                                     "{:,.0f}".format(v("B24")), "{:,.2f}".format(v("B35")),
+                                     "{:,.2f}".format(v("B33"))))
     worth = v("B23")
     deadline = ("costs us %s" % "{:,.2f}".format(-worth) if worth < 0 else
                 "is worth %s to us" % "{:,.2f}".format(worth))
@@ -218,7 +225,8 @@ def test_charts_titled_from_zero_and_plain(book, name):
 # ---- 4. footer ----------------------------------------------------------------------
 @pytest.mark.parametrize("name", ALL_FILES)
 def test_footer(book, tmp_path, name):
-    """Every page ends with the file name, the date it was printed and 'Page n of N'."""
+    """Every page carries, in its footer, the file name, the date it was printed and
+    "Page n of N"."""
     doc = book(name)
     path = str(tmp_path / name.replace(".fods", ".pdf"))
     doc.storeToURL(url(path), (prop("FilterName", PDF),))
@@ -227,8 +235,11 @@ def test_footer(book, tmp_path, name):
     pages = [p for p in pages if p.strip()]
     assert len(pages) >= 2
     for n, page in enumerate(pages, 1):
-        last = [ln for ln in page.splitlines() if ln.strip()][-1]
-        assert name in last, last
+        # The footer is read from the page's whole text, not from its last line:
+        # LibreOffice also writes a chart that starts on the next page into this page's
+        # text layer, clipped out of sight, and its words may fall around the footer's.
+        last = " ".join(page.split())
+        assert last.count("Page ") == 1 and name in last, last
         assert re.search(r"Printed \d{1,2}/\d{1,2}/\d{4}|Printed \d{4}-\d\d-\d\d", last), last
         assert "Page %d of %d" % (n, len(pages)) in last, last
 
