@@ -4,9 +4,10 @@ Python package's counteroffer._core.catalogue()); nothing here lists a function 
 The stored names follow the add-in's stable naming rule (addin/README.md "Stable
 names"; addin/gen/addin_gen.cpp): method "get" + the catalogue name in CamelCase, and
 for a function with several outputs an array form whose Calc name adds OUTCOME and
-whose method adds Outcome.  The one function that is not a catalogue row is the
+whose method adds Outcome.  The functions that are not catalogue rows are the
 add-in's call-overhead probe DEALCALLPROBE (getCallProbe), with DEALSHARE's argument
-shape (two required, two optional arguments).
+shape (two required, two optional arguments), DEALREASON, and the range and offer-path
+functions of NON_CATALOGUE (their stored names only: methods()).
 """
 import collections
 
@@ -72,11 +73,17 @@ def functions(probe=True):
 #: The reason function: a function's name, then that function's arguments (varargs).
 REASON = ("DEALREASON", "getReason")
 
+#: The add-in's functions that are not catalogue rows (addin/src/range_args.h): the
+#: ranges (share_range, share_swing).
+NON_CATALOGUE = {"DEALRANGE": "getShareRange", "DEALRANGEOUTCOME": "getShareRangeOutcome",
+                 "DEALSWING": "getShareSwing"}
+
 
 def methods():
     """{Calc name: stored method name} for every function of the add-in."""
     out = {f.calc: f.method for f in functions()}
     out[REASON[0]] = REASON[1]
+    out.update(NON_CATALOGUE)
     return out
 
 

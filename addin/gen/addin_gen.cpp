@@ -17,6 +17,8 @@
 // are part of every saved spreadsheet: see addin/README.md before changing them.
 #include <counteroffer/counteroffer.h>
 
+#include "../src/range_args.h"
+
 #include <cctype>
 #include <cstdio>
 #include <fstream>
@@ -44,6 +46,7 @@ struct Method {
     int id;                 // catalogue id, or -1 for the probe and the reason function
     bool outcome;           // array of every output
     bool reason = false;    // DEALREASON: a function name and its arguments (varargs)
+    std::string call;       // a function that is not a catalogue row: the glue's call
 };
 
 std::string camel(const std::string &snake) {
@@ -143,6 +146,26 @@ std::string returns_text(const cto_function_info *f) {
     return s;
 }
 
+// Argument a of a catalogue function, with its Function Wizard text; `also` is added to
+// the help before the default (the ways a range function takes it).
+void add_arg(Method &m, const cto_arg_info &a, const std::string &also = "") {
+    // UNO IDL allows no lower-case letter after an underscore: ownFactor.
+    std::string p = camel(a.name);
+    p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
+    if (idl_reserved(p)) p += "Arg";
+    m.params.push_back(p);
+    m.optional.push_back(a.has_default != 0);
+    m.labels.push_back(a.label ? a.label : a.name);
+    std::string h = sentence(a.help ? a.help : "") + also;
+    if (a.has_default) {
+        if (h.find("default") == std::string::npos) h += " (default " + default_text(a) + ")";
+        h += ". Optional.";
+    } else {
+        h += ". Required.";
+    }
+    m.helps.push_back(h);
+}
+
 Method catalogue_method(const cto_function_info *f) {
     Method m;
     m.method = "get" + camel(f->name);
@@ -151,25 +174,7 @@ Method catalogue_method(const cto_function_info *f) {
     m.category = "Financial";
     m.id = f->id;
     m.outcome = false;
-    for (int j = 0; j < f->n_args; ++j) {
-        const cto_arg_info &a = f->args[j];
-        // UNO IDL allows no lower-case letter after an underscore: ownFactor.
-        std::string p = camel(a.name);
-        p[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(p[0])));
-        if (idl_reserved(p)) p += "Arg";
-        m.params.push_back(p);
-        m.optional.push_back(a.has_default != 0);
-        m.labels.push_back(a.label ? a.label : a.name);
-        std::string h = sentence(a.help ? a.help : "");
-        if (a.has_default) {
-            if (h.find("default") == std::string::npos)
-                h += " (default " + default_text(a) + ")";
-            h += ". Optional.";
-        } else {
-            h += ". Required.";
-        }
-        m.helps.push_back(h);
-    }
+    for (int j = 0; j < f->n_args; ++j) add_arg(m, f->args[j]);
     return m;
 }
 
@@ -233,6 +238,93 @@ Method reason_method() {
     return why;
 }
 
+// The catalogue's description of the argument called `name`: the first one with a
+// default, else the first (a walk-away value is required in DEALOUTSIDE, optional in the
+// combined model whose inputs the range functions take); the glue's rule
+// (src/ranges.hxx catalogue_arg).  nullptr when no function has it.
+const cto_arg_info *catalogue_arg(const char *name) {
+    const cto_arg_info *first = nullptr;
+    for (size_t i = 0; i < cto_function_count(); ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        for (int j = 0; f && j < f->n_args; ++j) {
+            const cto_arg_info &a = f->args[j];
+            if (!a.name || std::string(a.name) != name) continue;
+            if (a.has_default) return &a;
+            if (!first) first = &a;
+        }
+    }
+    return first;
+}
+
+const char *const kRangeSources =
+    "Source: Sobol' (1967) points with Joe & Kuo (2008) direction numbers, Owen (1995, 1997) "
+    "scrambling, quantiles by Hyndman & Fan (1996) definition 7; PERT: Malcolm, Roseboom, "
+    "Clark & Fazar (1959), Vose (2008); the model: Rubinstein (1982), Muthoo (1999) chs.3-6.";
+
+// The 14 inputs of share_range (src/range_args.h) with the catalogue's text; false when
+// the table lacks one.
+bool add_range_inputs(Method &m) {
+    for (const char *name : cto_addin::kRangeInputNames) {
+        const cto_arg_info *a = catalogue_arg(name);
+        if (!a) {
+            std::cerr << "addin_gen: no catalogue argument " << name << "\n";
+            return false;
+        }
+        add_arg(m, *a, a->kind == CTO_ARG_BOOL
+                           ? "; a single value"
+                           : "; one cell (fixed), or 2 cells (low, high: uniform) or 3 cells "
+                             "(low, mode, high: see Shape)");
+    }
+    return true;
+}
+
+// DEALRANGE (outcome: DEALRANGEOUTCOME): share_range in Calc (src/ranges.hxx).
+bool range_method(bool outcome, Method &m) {
+    m.method = outcome ? "getShareRangeOutcome" : "getShareRange";
+    m.calc = outcome ? "DEALRANGEOUTCOME" : "DEALRANGE";
+    m.desc = outcome
+        ? "Every output of DEALRANGE as an array (enter as a matrix formula), a row per output "
+          "with the columns label, estimate, 95% half-width, significant digits: own share at "
+          "each probability (default 0.1, 0.5, 0.9), other share at each, both means, the "
+          "probabilities of a rational deal and of each walk-away value binding, the edge "
+          "fraction, points per replicate, replicates, uncertain inputs, status (ok or "
+          "precision not reached) and spec version. "
+        : "Own share at a probability (a quantile of the split) when inputs are known only as "
+          "ranges, by randomized quasi-Monte Carlo with a fixed seed (the same numbers on every "
+          "recalculation); a range of probabilities gives an array. Err:523 when a quantile "
+          "misses the digit target (DEALRANGEOUTCOME shows the estimate and its error bar). ";
+    m.desc += kRangeSources;
+    m.category = "Financial";
+    m.id = -1;
+    m.outcome = outcome;
+    m.call = outcome ? "share_range(args, true)" : "share_range(args, false)";
+    if (!add_range_inputs(m)) return false;
+    for (const cto_addin::ExtraArg &e : cto_addin::kRangeExtra) {
+        m.params.push_back(e.param);
+        m.optional.push_back(true);
+        m.labels.push_back(e.label);
+        m.helps.push_back(sentence(e.help) + ". Optional.");
+    }
+    return true;
+}
+
+// DEALSWING: share_swing in Calc.
+bool swing_method(Method &m) {
+    m.method = "getShareSwing";
+    m.calc = "DEALSWING";
+    m.desc = "One-at-a-time swing of each uncertain input (a tornado): an array, a row per "
+             "uncertain input, largest swing first, with the columns input name, own share at "
+             "its low, own share at its high (the other inputs at their modes; enter as a matrix "
+             "formula). It ignores interactions, which DEALRANGE includes. Source: one-way "
+             "sensitivity, Howard (1988), Clemen & Reilly (2014) ch.5; the model: Rubinstein "
+             "(1982), Muthoo (1999) chs.3-6.";
+    m.category = "Financial";
+    m.id = -1;
+    m.outcome = true;
+    m.call = "share_swing(args)";
+    return add_range_inputs(m);
+}
+
 std::vector<Method> collect() {
     std::vector<Method> ms;
     const size_t n = cto_function_count();
@@ -244,6 +336,10 @@ std::vector<Method> collect() {
         ms.push_back(catalogue_method(f));
         if (f->n_outputs > 1) ms.push_back(outcome_method(f, ms.back()));
     }
+    Method range, range_outcome, swing;
+    if (!range_method(false, range) || !range_method(true, range_outcome) || !swing_method(swing))
+        return {};
+    for (Method *m : {&range, &range_outcome, &swing}) ms.push_back(*m);
     ms.push_back(probe_method());
     ms.push_back(reason_method());
     return ms;
@@ -339,7 +435,9 @@ std::string make_def(const std::vector<Method> &ms) {
         s << ")\n{\n    const Arg args[] = {";
         for (size_t j = 0; j < m.params.size(); ++j) s << (j ? ", " : "") << "Arg(a" << j << ")";
         s << "};\n";
-        if (m.id < 0)
+        if (!m.call.empty())
+            s << "    return " << m.call << ";\n";
+        else if (m.id < 0)
             s << "    return probe(args);\n";
         else
             s << "    return evaluate(" << m.id << ", args, " << m.params.size() << ", "

@@ -14,6 +14,9 @@
 //        no convergence   -> sheet::NoConvergenceException   -> Err:523
 //        internal error   -> RuntimeException                -> #VALUE! (Err:519)
 //      In an array result each element carries its own code as an error NaN.
+// DEALRANGE, DEALRANGEOUTCOME and DEALSWING (src/ranges.hxx) are not catalogue rows;
+// their methods forward to share_range and share_swing below, with the same conversion
+// and error values.
 // Validation and mathematics live in the library only.
 #include <counteroffer/counteroffer.h>
 
@@ -40,8 +43,8 @@
 #include <memory>
 #include <vector>
 
-namespace css = com::sun::star;
-using rtl::OUString;
+#include "convert.hxx"
+#include "ranges.hxx"
 
 namespace {
 
@@ -49,137 +52,11 @@ constexpr const char kServiceName[] = "org.counteroffer.DealFunctions";
 constexpr const char kImplName[] = "org.counteroffer.DealFunctionsImpl";
 constexpr int kMaxArgs = 32;
 
-// Calc's error codes (include/formula/errorcodes.hxx of LibreOffice 7.4).
-constexpr std::uint32_t kErrIllegalArgument = 502;  // Err:502
-constexpr std::uint32_t kErrIllegalFPOperation = 503; // #NUM!
-constexpr std::uint32_t kErrNoValue = 519;            // #VALUE!
-constexpr std::uint32_t kErrNoConvergence = 523;      // Err:523
-constexpr std::uint32_t kErrNotAvailable = 0x7fff;    // #N/A
-
-// A quiet NaN carrying a Calc error code in the low 32 bits of the fraction: the
-// way Calc itself stores an error in a number (formula::CreateDoubleError).  Used
-// only inside array results, where each element needs its own error value.
-double error_nan(std::uint32_t code) {
-    const std::uint64_t bits = UINT64_C(0x7ff8000000000000) | code;
-    double d;
-    std::memcpy(&d, &bits, sizeof d);
-    return d;
-}
-
-std::uint32_t status_error(int status) {
-    switch (status) {
-    case CTO_E_INVALID: return kErrIllegalArgument;
-    case CTO_E_NO_DEAL: return kErrNotAvailable;
-    case CTO_E_INDETERMINATE: return kErrIllegalFPOperation;
-    case CTO_E_NO_CONVERGENCE: return kErrNoConvergence;
-    default: return kErrNoValue;
-    }
-}
-
-const double kNaN = std::numeric_limits<double>::quiet_NaN();
-
 css::uno::Sequence<OUString> SAL_CALL service_names() {
     css::uno::Sequence<OUString> s(2);
     s.getArray()[0] = kServiceName;
     s.getArray()[1] = "com.sun.star.sheet.AddIn";
     return s;
-}
-
-bool equals_ignore_case(const OUString &s, const char *ascii) {
-    return s.equalsIgnoreAsciiCaseAscii(ascii);
-}
-
-// One cell value (or one range element) to the library's double for argument `a`.
-// Anything that is not a usable value becomes NaN, which cto_call rejects as an
-// invalid argument and reports by position: validation stays in the library.
-double to_double(const css::uno::Any &v, const cto_arg_info &a) {
-    switch (v.getValueTypeClass()) {
-    case css::uno::TypeClass_VOID:
-        return a.has_default ? a.default_value : kNaN;
-    case css::uno::TypeClass_DOUBLE:
-        return *static_cast<const double *>(v.getValue());
-    case css::uno::TypeClass_BOOLEAN:
-        return *static_cast<const sal_Bool *>(v.getValue()) ? 1.0 : 0.0;
-    case css::uno::TypeClass_FLOAT:
-    case css::uno::TypeClass_BYTE:
-    case css::uno::TypeClass_SHORT:
-    case css::uno::TypeClass_UNSIGNED_SHORT:
-    case css::uno::TypeClass_LONG:
-    case css::uno::TypeClass_UNSIGNED_LONG:
-    case css::uno::TypeClass_HYPER: {
-        double d = kNaN;
-        v >>= d;
-        return d;
-    }
-    case css::uno::TypeClass_STRING: {
-        const OUString &s = *static_cast<const OUString *>(v.getValue());
-        if (a.kind == CTO_ARG_CHOICE && a.choices) {
-            int i = 0;
-            for (const char *const *c = a.choices; *c; ++c, ++i)
-                if (equals_ignore_case(s, *c)) return static_cast<double>(i);
-        } else if (a.kind == CTO_ARG_BOOL) {
-            if (equals_ignore_case(s, "TRUE")) return 1.0;
-            if (equals_ignore_case(s, "FALSE")) return 0.0;
-        }
-        return kNaN; // text where a number is needed
-    }
-    default:
-        return kNaN;
-    }
-}
-
-using Mixed = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
-
-// One argument as Calc passes it.  A required argument is declared
-// sequence<sequence<any>>: Calc then hands over a single cell as a 1x1 range whose
-// element is VOID when the cell is empty (as `any`, an empty cell arrives as 0).
-// An optional argument is declared `any` (VOID when left out); it may also hold a
-// range (sequence<sequence<any>>) or an inline array.
-struct Arg {
-    const css::uno::Any *any = nullptr;
-    const Mixed *seq = nullptr;
-    explicit Arg(const css::uno::Any &a) : any(&a) {}
-    explicit Arg(const Mixed &m) : seq(&m) {}
-};
-
-// A rectangular view of an argument: a range (rows x cols) or one value (1 x 1).
-struct View {
-    const Mixed *m = nullptr;          // the range, or nullptr for a single value
-    const css::uno::Any *one = nullptr; // the single value
-    std::unique_ptr<Mixed> owned;       // a converted sequence<sequence<double>>
-    sal_Int32 rows = 1, cols = 1;
-
-    const css::uno::Any &at(sal_Int32 r, sal_Int32 c) const {
-        return m ? (*m)[r][c] : *one;
-    }
-    const css::uno::Any &first() const { return m ? (*m)[0][0] : *one; }
-};
-
-// false: not a usable range (ragged, empty, or an unknown element type).
-bool make_view(const Arg &a, View &v) {
-    if (a.seq) {
-        v.m = a.seq;
-    } else if (a.any->getValueTypeClass() != css::uno::TypeClass_SEQUENCE) {
-        v.one = a.any;
-        return true;
-    } else if (a.any->getValueType() == cppu::UnoType<Mixed>::get()) {
-        v.m = static_cast<const Mixed *>(a.any->getValue()); // no copy
-    } else {
-        css::uno::Sequence<css::uno::Sequence<double>> d;
-        if (!(*a.any >>= d)) return false;
-        v.owned = std::make_unique<Mixed>(d.getLength());
-        for (sal_Int32 i = 0; i < d.getLength(); ++i) {
-            css::uno::Sequence<css::uno::Any> row(d[i].getLength());
-            for (sal_Int32 j = 0; j < d[i].getLength(); ++j) row.getArray()[j] <<= d[i][j];
-            v.owned->getArray()[i] = row;
-        }
-        v.m = v.owned.get();
-    }
-    v.rows = v.m->getLength();
-    v.cols = v.rows > 0 ? (*v.m)[0].getLength() : 0;
-    for (sal_Int32 i = 1; i < v.rows; ++i)
-        if ((*v.m)[i].getLength() != v.cols) return false;
-    return v.rows > 0 && v.cols > 0;
 }
 
 } // namespace
@@ -215,6 +92,20 @@ class DealFunctions
 
   private:
     std::vector<const cto_function_info *> table_;
+
+    // Runs f; only the three UNO exceptions of the error mapping leave it, anything else
+    // becomes a RuntimeException (#VALUE!).
+    template <class F> static css::uno::Any guarded(F f) {
+        try {
+            return f();
+        } catch (const css::uno::Exception &) {
+            throw;
+        } catch (const std::exception &e) {
+            throw css::uno::RuntimeException(OUString::createFromAscii(e.what()));
+        } catch (...) {
+            throw css::uno::RuntimeException("counteroffer: unexpected failure");
+        }
+    }
 
     const cto_function_info &info(int id) const {
         if (id < 0 || static_cast<size_t>(id) >= table_.size() || !table_[id])
@@ -450,6 +341,17 @@ class DealFunctions
         } catch (...) {
             throw css::uno::RuntimeException("counteroffer: unexpected failure");
         }
+    }
+
+    // The functions that are not catalogue rows (src/ranges.hxx); args
+    // in the order of src/range_args.h.
+    css::uno::Any share_range(const Arg *args, bool outcome) {
+        return guarded([&] {
+            return outcome ? range_outcome(table_, args) : range_quantiles(table_, args);
+        });
+    }
+    css::uno::Any share_swing(const Arg *args) {
+        return guarded([&] { return range_swing(table_, args); });
     }
 
     // DEALCALLPROBE: the same argument conversion as every function, no model.

@@ -1,4 +1,5 @@
-// Test of the add-in's UNO glue: status -> Calc error mapping and argument conversion.
+// Test of the add-in's UNO glue: status -> Calc error mapping and argument conversion
+// (the range functions: glue_ranges.hxx).
 //
 // The glue (src/deal_addin.cxx) is compiled here against a stand-in for the library's
 // table-driven interface: one function whose second argument selects the status
@@ -10,8 +11,10 @@
 // exception-to-error rules of ScUnoAddInCall::ExecuteCallWithArgs (STYLE.md s.1).
 #include "../src/deal_addin.cxx"
 
+#include <algorithm>
 #include <cstdio>
 #include <cstdlib>
+#include <vector>
 #include <rtl/ref.hxx>
 
 // ---- the stand-in library -------------------------------------------------------
@@ -28,8 +31,6 @@ const cto_function_info kFake = {sizeof(cto_function_info), 0, "fake", "DEALFAKE
 } // namespace
 
 extern "C" {
-size_t cto_function_count(void) { return 1; }
-const cto_function_info *cto_function_at(size_t i) { return i == 0 ? &kFake : nullptr; }
 const char *cto_status_message(int) { return "stand-in"; }
 // value + 10 flag + 100 pick; a NaN argument is invalid (the library's rule);
 // status 9 means "ok but not finite" (a defect the glue must not show as a number).
@@ -240,11 +241,29 @@ void check_reason(const rtl::Reference<DealFunctions> &f) {
 }
 } // namespace
 
+namespace {
+constexpr int kArgProbOpt = cto_addin::kArgProbability - 3, kArgShapeOpt = cto_addin::kArgShape - 3,
+              kArgSeedOpt = cto_addin::kArgSeed - 3, kArgDigitsOpt = cto_addin::kArgDigits - 3;
+} // namespace
+#include "glue_ranges.hxx"
+
+// The stand-in table: the function above and the inputs of share_range.
+extern "C" {
+size_t cto_function_count(void) { return 2; }
+const cto_function_info *cto_function_at(size_t i) {
+    return i == 0 ? &kFake : i == 1 ? &kRangeFake : nullptr;
+}
+}
+
 int main() {
     rtl::Reference<DealFunctions> f(new DealFunctions);
     check_scalars(f);
     check_arrays(f);
     check_reason(f);
+    check_range_conversion(*f);
+    check_range_errors(*f);
+    check_range_arrays(*f);
+    check_swing(*f);
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;
 }

@@ -65,6 +65,12 @@ def addin_functions(functions: List[Function]) -> str:
                              for o in f.outputs)
             rows.append(f"| {f.calc_name}OUTCOME | get{camel(f.name)}Outcome | "
                         f"array, a row per case with the columns {outs} |")
+    rows.append("| DEALRANGE | getShareRange | own share at a probability (a quantile) when inputs "
+                "are ranges (share_range; an array for a range of probabilities; see \"Ranges\") |")
+    rows.append("| DEALRANGEOUTCOME | getShareRangeOutcome | array, a row per output of share_range "
+                "with the columns label, estimate, 95% half-width, digits (see \"Ranges\") |")
+    rows.append("| DEALSWING | getShareSwing | array, a row per uncertain input: its name, own share "
+                "at its low, at its high, largest swing first (share_swing) |")
     rows.append("| DEALREASON | getReason | why a DEAL function gives its result, in words: the "
                 "function's name, then its arguments (see \"Why a cell fails\") |")
     rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "

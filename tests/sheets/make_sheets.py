@@ -25,6 +25,8 @@ import sys
 
 import mpmath as mp
 
+import range_cases
+
 from officekit.flat_odf import document as odf_document, formula_cell, of_cell
 from officekit.flat_odf import row as odf_row, text_cell, value_cell as cell_value
 
@@ -368,11 +370,22 @@ def array_rows():
     return rows
 
 
+def ranges_rows():
+    """DEALRANGE, DEALRANGEOUTCOME and DEALSWING (tests/sheets/range_cases.py): a matrix
+    formula first (rows 2-4), then single cells."""
+    rows = range_cases.range_matrix_rows(share_rates, 2)
+    for row in rows:
+        row["formula_text_row"] = 2
+    cases = range_cases.range_values(share_rates, Text) + range_cases.ERRORS
+    return rows + scalar_rows(cases)
+
+
 def main():
     files = {
         "addin_values.fods": ("add-in values", scalar_rows(VALUES)),
         "addin_errors.fods": ("add-in error values", scalar_rows(ERRORS)),
         "addin_arrays.fods": ("add-in whole-column form", array_rows()),
+        "addin_ranges.fods": ("add-in ranges", ranges_rows()),
     }
     for name, (title, rows) in files.items():
         with open(os.path.join(HERE, name), "w", encoding="utf-8") as f:

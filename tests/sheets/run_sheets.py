@@ -16,6 +16,7 @@ The profile given with --profile must have the add-in installed
 import argparse
 import os
 import shutil
+import struct
 import subprocess
 import sys
 import tempfile
@@ -44,6 +45,15 @@ def rows_of(sheet):
     cursor = sheet.createCursor()
     cursor.gotoEndOfUsedArea(False)
     return cursor.RangeAddress.EndRow + 1
+
+
+def results(cases, n):
+    """Every result cell (column B) as (error code, the value's bits, its text)."""
+    out = []
+    for r in range(1, n):
+        c = cases.getCellByPosition(1, r)
+        out.append((c.getError(), struct.pack("<d", c.getValue()), c.getString()))
+    return out
 
 
 def check_sheet(office, path, fails, expect_name_errors=False):
@@ -80,6 +90,11 @@ def check_sheet(office, path, fails, expect_name_errors=False):
                         "%s: check cell not TRUE (expected %s, got %s)" % (
                             where, exp.getString(), got))
         if not expect_name_errors:
+            # Never volatile, never random: a second hard recalculation gives the same bits.
+            first = results(cases, n)
+            doc.calculateAll()
+            fails.check(results(cases, n) == first,
+                        os.path.basename(path) + ": a second recalculation changed a result")
             summary = doc.Sheets.getByName("Summary")
             fails.check(summary.getCellByPosition(1, 0).getValue() == 1.0
                         and summary.getCellByPosition(1, 0).getError() == 0,

@@ -1,0 +1,303 @@
+// Glue test of DEALRANGE, DEALRANGEOUTCOME and DEALSWING (src/ranges.hxx) against
+// stand-ins for cto_share_range and cto_share_swing that record what the glue hands over
+// and return the status a test asks for.  The expected conversions are the rules of
+// addin/README.md "Ranges"; the expected error values those of "Error values" (Calc's
+// codes from LibreOffice 7.4 include/formula/errorcodes.hxx).  Included by glue_test.cxx.
+
+// ---- stand-ins ------------------------------------------------------------------
+namespace {
+const double kAbsent = -HUGE_VAL;
+// The inputs of share_range under their catalogue names (labels "In1".."In14").
+const cto_arg_info kRangeFakeArgs[] = {
+    {"own_rate", "In1", "h", CTO_ARG_NONNEG, 0, 0.0, 0, nullptr},
+    {"other_rate", "In2", "h", CTO_ARG_NONNEG, 0, 0.0, 0, nullptr},
+    {"days", "In3", "h", CTO_ARG_NONNEG, 0, 0.0, 0, nullptr},
+    {"breakdown_prob", "In4", "h", CTO_ARG_UNIT, 1, 0.0, 0, nullptr},
+    {"own_fallback", "In5", "h", CTO_ARG_REAL, 1, 0.0, 0, nullptr},
+    {"other_fallback", "In6", "h", CTO_ARG_REAL, 1, 0.0, 0, nullptr},
+    {"own_inside", "In7", "h", CTO_ARG_REAL, 1, 0.0, 0, nullptr},
+    {"other_inside", "In8", "h", CTO_ARG_REAL, 1, 0.0, 0, nullptr},
+    {"own_outside", "In9", "h", CTO_ARG_OPTIONAL, 1, kAbsent, 0, nullptr},
+    {"other_outside", "In10", "h", CTO_ARG_OPTIONAL, 1, kAbsent, 0, nullptr},
+    {"surplus", "In11", "h", CTO_ARG_REAL, 1, 1.0, 0, nullptr},
+    {"own_opens", "In12", "h", CTO_ARG_BOOL, 1, 1.0, 0, nullptr},
+    {"basis", "In13", "h", CTO_ARG_POSITIVE, 1, 365.0, 0, nullptr},
+    {"continuous", "In14", "h", CTO_ARG_BOOL, 1, 0.0, 0, nullptr}};
+const cto_function_info kRangeFake = {sizeof(cto_function_info), 1, "rates_fake", "", "s", "f",
+                                      "src", "st", 14, kRangeFakeArgs, 1, kOuts};
+struct Recorded {
+    cto_range_input in;
+    cto_range_options opt;
+    int status = CTO_OK;       // what the stand-ins return
+    int bad = -1;              // the index they report for CTO_E_INVALID
+    int64_t path_rounds = 5000; // the stand-in swing's rows: none when 0
+} rec;
+
+// The library's rules, simulated: a fixed input needs a number, a range low <= high.
+int fake_check(const cto_range_input *in) {
+    for (int j = 0; j < CTO_RANGE_INPUTS; ++j) {
+        const cto_range_arg &a = in->arg[j];
+        const bool ok = a.kind == CTO_RANGE_FIXED ? !std::isnan(a.mode)
+                        : a.kind == CTO_RANGE_UNIFORM ? a.low <= a.high
+                                                      : a.low <= a.mode && a.mode <= a.high;
+        if (!ok) return j;
+    }
+    return -1;
+}
+} // namespace
+
+extern "C" {
+const char *cto_status_name(int s) {
+    return s == CTO_OK ? "ok" : s == CTO_E_PRECISION ? "precision_not_reached" : "other";
+}
+void cto_range_default_options(cto_range_options *o) {
+    std::memset(o, 0, sizeof *o);
+    o->size = sizeof *o;
+    o->n_probs = 3;
+    o->probs[0] = 0.1, o->probs[1] = 0.5, o->probs[2] = 0.9;
+    o->replicates = 16;
+    o->digits = 3;
+}
+// own share at p: 100 + p; the quantile at p = 0.5 has 2 digits, the others 3.
+int cto_share_range(const cto_range_input *in, const cto_range_options *opt,
+                    cto_range_outcome *out) {
+    rec.in = *in;
+    rec.opt = *opt;
+    out->bad = -1;
+    int st = rec.status;
+    const int j = fake_check(in);
+    if (j >= 0) st = CTO_E_INVALID, out->bad = j;
+    for (int k = 0; k < opt->n_probs; ++k)
+        if (!(opt->probs[k] > 0.0 && opt->probs[k] < 1.0)) st = CTO_E_INVALID, out->bad = 14;
+    if (!(opt->digits >= 1 && opt->digits <= 15)) st = CTO_E_INVALID, out->bad = 17;
+    if (st == CTO_E_INVALID && out->bad < 0) out->bad = rec.bad;
+    out->status = st;
+    out->n_probs = opt->n_probs;
+    for (int k = 0; k < opt->n_probs; ++k) {
+        out->probs[k] = opt->probs[k];
+        out->own[k] = {100.0 + opt->probs[k], 0.01, 0.02, opt->probs[k] == 0.5 ? 2 : 3};
+        out->other[k] = {200.0 + opt->probs[k], 0.01, 0.02, 3};
+    }
+    out->points_per_replicate = 1024;
+    out->replicates = 16;
+    out->dimension = 2;
+    out->spec_version = 1;
+    return st;
+}
+// Rows: other_rate (0.4 at its low; no deal at its high), then own_rate (0.6, 0.7).
+int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
+    rec.in = *in;
+    const int j = fake_check(in);
+    out->status = j >= 0 ? CTO_E_INVALID : rec.status;
+    out->bad = j >= 0 ? j : rec.bad;
+    out->base = 0.5;
+    out->base_status = CTO_OK;
+    out->n_rows = rec.path_rounds == 0 ? 0 : 2;
+    out->row[0] = {1, 0.4, 0.2, 0.2, CTO_OK, CTO_E_NO_DEAL};
+    out->row[1] = {0, 0.6, 0.7, 0.1, CTO_OK, CTO_OK};
+    return out->status;
+}
+}
+
+// ---- checks ---------------------------------------------------------------------
+namespace {
+Mixed cells(sal_Int32 rows, sal_Int32 cols, std::initializer_list<css::uno::Any> vs) {
+    Mixed m(rows);
+    auto it = vs.begin();
+    for (sal_Int32 r = 0; r < rows; ++r) {
+        css::uno::Sequence<css::uno::Any> row(cols);
+        for (sal_Int32 c = 0; c < cols; ++c) row.getArray()[c] = *it++;
+        m.getArray()[r] = row;
+    }
+    return m;
+}
+css::uno::Any num(double x) { return css::uno::Any(x); }
+css::uno::Any text(const char *s) { return css::uno::Any(OUString::createFromAscii(s)); }
+
+// DEALRANGE's 18 arguments: the three required as given, the optional ones at `opt`
+// (VOID: left out) except the ones set.
+struct RangeCall {
+    Mixed req[3] = {one(num(0.05)), one(num(0.08)), one(num(30.0))};
+    css::uno::Any opt[15];
+    std::vector<Arg> args() const {
+        std::vector<Arg> a;
+        for (const Mixed &m : req) a.emplace_back(m);
+        for (const css::uno::Any &o : opt) a.emplace_back(o);
+        return a;
+    }
+};
+
+// The outcome of a call as Calc would see it, with the exception's argument position.
+struct Result {
+    Outcome kind = Outcome::Value;
+    css::uno::Any value;
+    int position = -1;
+    OUString message;
+};
+template <class F> Result call(F f) {
+    Result r;
+    try {
+        r.value = f();
+        double d = 0;
+        r.kind = !r.value.hasValue() ? Outcome::Void
+                 : ((r.value >>= d) && std::isnan(d)) ? Outcome::NaN : Outcome::Value;
+    } catch (const css::lang::IllegalArgumentException &e) {
+        r.kind = Outcome::Illegal, r.position = e.ArgumentPosition, r.message = e.Message;
+    } catch (const css::sheet::NoConvergenceException &e) {
+        r.kind = Outcome::NoConv, r.message = e.Message;
+    } catch (const css::uno::RuntimeException &) {
+        r.kind = Outcome::Runtime;
+    }
+    return r;
+}
+Result range(DealFunctions &f, const RangeCall &c, bool outcome = false) {
+    const std::vector<Arg> a = c.args();
+    return call([&] { return f.share_range(a.data(), outcome); });
+}
+
+void check_range_conversion(DealFunctions &f) {
+    rec.status = CTO_OK;
+    RangeCall c;
+    c.req[1] = cells(1, 2, {num(0.02), num(0.08)});            // uniform (a row)
+    c.req[2] = cells(3, 1, {num(10.0), num(30.0), num(60.0)}); // PERT (a column)
+    Result r = range(f, c);
+    double v = 0;
+    check(r.kind == Outcome::Value && (r.value >>= v) && v == 100.5,
+          "DEALRANGE: a value at the default probability 0.5");
+    check(rec.in.size == sizeof(cto_range_input) && rec.in.arg[0].kind == CTO_RANGE_FIXED &&
+              rec.in.arg[0].mode == 0.05, "one cell: fixed");
+    check(rec.in.arg[1].kind == CTO_RANGE_UNIFORM && rec.in.arg[1].low == 0.02 &&
+              rec.in.arg[1].high == 0.08, "2 cells in a row: uniform (low, high)");
+    check(rec.in.arg[2].kind == CTO_RANGE_PERT && rec.in.arg[2].low == 10.0 &&
+              rec.in.arg[2].mode == 30.0 && rec.in.arg[2].high == 60.0,
+          "3 cells in a column: PERT (low, mode, high) by default");
+    check(rec.in.arg[3].kind == CTO_RANGE_FIXED && rec.in.arg[3].mode == 0.0 &&
+              rec.in.arg[8].mode == kAbsent && rec.in.arg[10].mode == 1.0 &&
+              rec.in.arg[11].mode == 1.0 && rec.in.arg[12].mode == 365.0,
+          "left out: the catalogue default, fixed (walk-away value absent: -infinity)");
+    check(rec.opt.n_probs == 1 && rec.opt.probs[0] == 0.5 && rec.opt.seed == 0 &&
+              rec.opt.digits == 3 && rec.opt.replicates == 16,
+          "options: probability 0.5, seed 0, digits 3, the library's other defaults");
+    c.opt[kArgShapeOpt] = text(" Triangular ");
+    c.opt[kArgSeedOpt] = num(7.0);
+    c.opt[kArgDigitsOpt] = num(2.0);
+    c.opt[11 - 3] = text("FALSE"); // own_opens as text
+    range(f, c);
+    check(rec.in.arg[2].kind == CTO_RANGE_TRIANGULAR && rec.opt.seed == 7 && rec.opt.digits == 2 &&
+              rec.in.arg[11].mode == 0.0,
+          "shape \"triangular\" (any case), seed 7, digits 2, a boolean as text");
+}
+
+void check_range_errors(DealFunctions &f) {
+    rec.status = CTO_OK;
+    auto illegal_at = [&](RangeCall c, int position, const char *what) {
+        const Result r = range(f, c);
+        check(r.kind == Outcome::Illegal && r.position == position, what);
+    };
+    RangeCall c;
+    c.req[1] = cells(1, 4, {num(1.0), num(2.0), num(3.0), num(4.0)});
+    illegal_at(c, 1, "a 1x4 range: Err:502 for that argument");
+    c.req[1] = cells(2, 2, {num(1.0), num(2.0), num(3.0), num(4.0)});
+    illegal_at(c, 1, "a 2x2 range: Err:502");
+    c.req[1] = cells(1, 2, {num(0.08), num(0.02)});
+    illegal_at(c, 1, "low above high: the library's invalid index as the argument");
+    c.req[1] = cells(1, 2, {num(0.02), css::uno::Any()});
+    illegal_at(c, 1, "an empty cell inside a range: NaN, never the default");
+    c.req[1] = cells(1, 3, {num(0.02), text("x"), num(0.08)});
+    illegal_at(c, 1, "text inside a range: invalid");
+    RangeCall s;
+    s.opt[kArgShapeOpt] = text("normal");
+    illegal_at(s, kArgShapeOpt + 3, "an unknown shape: Err:502");
+    RangeCall d;
+    d.opt[kArgDigitsOpt] = num(2.5);
+    illegal_at(d, kArgDigitsOpt + 3, "digits not whole: the library rejects it (digits)");
+    RangeCall e;
+    e.opt[kArgSeedOpt] = num(-1.0);
+    illegal_at(e, kArgSeedOpt + 3, "a negative seed: Err:502");
+    e.opt[kArgSeedOpt] = num(1.5);
+    illegal_at(e, kArgSeedOpt + 3, "a seed not whole: Err:502");
+    RangeCall p;
+    p.opt[kArgProbOpt] = num(1.0);
+    illegal_at(p, kArgProbOpt + 3, "probability 1: the library rejects it (probability)");
+    std::vector<css::uno::Any> many(33, num(0.5));
+    Mixed m(33);
+    for (sal_Int32 i = 0; i < 33; ++i) m.getArray()[i] = css::uno::Sequence<css::uno::Any>(&many[0], 1);
+    p.opt[kArgProbOpt] <<= m;
+    illegal_at(p, kArgProbOpt + 3, "33 probabilities: more than the library's 32");
+    const int statuses[] = {CTO_E_INDETERMINATE, CTO_E_NO_CONVERGENCE, CTO_E_INTERNAL};
+    const Outcome want[] = {Outcome::NaN, Outcome::NoConv, Outcome::Runtime};
+    for (int i = 0; i < 3; ++i) {
+        rec.status = statuses[i];
+        check(range(f, RangeCall()).kind == want[i] && range(f, RangeCall(), true).kind == want[i],
+              "DEALRANGE/DEALRANGEOUTCOME: indeterminate #NUM!, no convergence Err:523, internal #VALUE!");
+    }
+    rec.status = CTO_OK;
+}
+
+void check_range_arrays(DealFunctions &f) {
+    RangeCall c;
+    c.opt[kArgProbOpt] <<= cells(3, 1, {num(0.1), num(0.5), num(0.9)});
+    for (int st : {CTO_OK, CTO_E_PRECISION}) {
+        rec.status = st;
+        const Result r = range(f, c);
+        css::uno::Sequence<css::uno::Sequence<double>> m;
+        check((r.value >>= m) && m.getLength() == 3 && m[0].getLength() == 1 &&
+                  rec.opt.n_probs == 3 && rec.opt.probs[2] == 0.9,
+              "a column of probabilities: a column of quantiles");
+        if (m.getLength() == 3)
+            check(m[0][0] == 100.1 && m[2][0] == 100.9 &&
+                      (st == CTO_OK ? m[1][0] == 100.5 : code_of(m[1][0]) == 523),
+                  "precision not reached: Err:523 exactly where a quantile is short");
+    }
+    rec.status = CTO_E_PRECISION;
+    check(range(f, RangeCall()).kind == Outcome::NoConv,
+          "one probability short of the target: Err:523, never the rough value");
+    c.opt[kArgProbOpt] = css::uno::Any();
+    const Result o = range(f, c, true);
+    css::uno::Sequence<css::uno::Sequence<css::uno::Any>> rows;
+    check((o.value >>= rows) && rows.getLength() == 17 && rows[0].getLength() == 4 &&
+              rec.opt.n_probs == 3, "outcome: 2 x 3 quantiles + 11 rows, 4 columns");
+    if (rows.getLength() == 17) {
+        OUString l0, l3, w;
+        double v0 = 0, h0 = 0, d1 = 0, n = 0;
+        check((rows[0][0] >>= l0) && l0 == "own share, p = 0.1" && (rows[0][1] >>= v0) &&
+                  v0 == 100.1 && (rows[0][2] >>= h0) && h0 == 0.02,
+              "outcome: own share at 0.1, its half-width");
+        check((rows[1][3] >>= d1) && d1 == 2.0, "outcome: the digits of the short quantile");
+        check((rows[3][0] >>= l3) && l3 == "other share, p = 0.1", "outcome: other share next");
+        check((rows[12][1] >>= n) && n == 1024.0, "outcome: points per replicate");
+        check((rows[15][1] >>= w) && w == "precision not reached", "outcome: the status word");
+    }
+    rec.status = CTO_OK;
+}
+
+void check_swing(DealFunctions &f) {
+    RangeCall c;
+    c.req[0] = cells(1, 2, {num(0.05), num(0.1)});
+    std::vector<Arg> a = c.args();
+    a.erase(a.begin() + 14, a.end());
+    Result r = call([&] { return f.share_swing(a.data()); });
+    css::uno::Sequence<css::uno::Sequence<css::uno::Any>> rows;
+    check((r.value >>= rows) && rows.getLength() == 2 && rows[0].getLength() == 3,
+          "DEALSWING: a row per uncertain input, 3 columns");
+    if (rows.getLength() == 2) {
+        OUString n0, n1;
+        double lo = 0, hi = 0;
+        check((rows[0][0] >>= n0) && n0 == "other_rate" && (rows[1][0] >>= n1) && n1 == "own_rate",
+              "DEALSWING: the inputs' catalogue names in the library's order");
+        check((rows[0][1] >>= lo) && lo == 0.4 && (rows[0][2] >>= hi) && code_of(hi) == 0x7fff,
+              "DEALSWING: an end without a deal is #N/A");
+    }
+    rec.path_rounds = 0;
+    r = call([&] { return f.share_swing(a.data()); });
+    OUString none;
+    check((r.value >>= rows) && rows.getLength() == 1 && (rows[0][0] >>= none) && none == "none",
+          "DEALSWING: no uncertain input: one row \"none\"");
+    rec.path_rounds = 5000;
+    c.req[0] = cells(1, 2, {num(0.1), num(0.05)});
+    a = c.args();
+    r = call([&] { return f.share_swing(a.data()); });
+    check(r.kind == Outcome::Illegal && r.position == 0, "DEALSWING: low above high is Err:502");
+}
+
+} // namespace
