@@ -74,9 +74,9 @@ def functions(probe=True):
 REASON = ("DEALREASON", "getReason")
 
 #: The add-in's functions that are not catalogue rows (addin/src/range_args.h): the
-#: ranges (share_range, share_swing).
+#: ranges (share_range, share_swing) and the offer path's rows (offer_path).
 NON_CATALOGUE = {"DEALRANGE": "getShareRange", "DEALRANGEOUTCOME": "getShareRangeOutcome",
-                 "DEALSWING": "getShareSwing"}
+                 "DEALSWING": "getShareSwing", "DEALOFFERPATH": "getOfferPath"}
 
 
 def methods():

@@ -256,6 +256,14 @@ const cto_arg_info *catalogue_arg(const char *name) {
     return first;
 }
 
+const cto_function_info *catalogue_function(const char *name) {
+    for (size_t i = 0; i < cto_function_count(); ++i) {
+        const cto_function_info *f = cto_function_at(i);
+        if (f && f->name && std::string(f->name) == name) return f;
+    }
+    return nullptr;
+}
+
 const char *const kRangeSources =
     "Source: Sobol' (1967) points with Joe & Kuo (2008) direction numbers, Owen (1995, 1997) "
     "scrambling, quantiles by Hyndman & Fan (1996) definition 7; PERT: Malcolm, Roseboom, "
@@ -325,6 +333,29 @@ bool swing_method(Method &m) {
     return add_range_inputs(m);
 }
 
+// DEALOFFERPATH: the rows of offer_path (src/offers.hxx).
+bool offer_path_method(Method &m) {
+    const cto_function_info *f = catalogue_function("offer_path");
+    if (!f) {
+        std::cerr << "addin_gen: no catalogue function offer_path\n";
+        return false;
+    }
+    m.method = "getOfferPath";
+    m.calc = "DEALOFFERPATH";
+    m.desc = "Repeated offers to a side of unknown value: an array, a row per round with the "
+             "columns round, offer, cutoff, probability of agreement in that round, probability "
+             "of agreement by that round (at most " +
+             std::to_string(cto_addin::kOfferPathMaxRows) +
+             " rows: the first rounds; enter as a matrix formula). Source: " +
+             std::string(f->source ? f->source : "") + ".";
+    m.category = "Financial";
+    m.id = -1;
+    m.outcome = true;
+    m.call = "offer_path(args)";
+    for (int j = 0; j < f->n_args; ++j) add_arg(m, f->args[j]);
+    return true;
+}
+
 std::vector<Method> collect() {
     std::vector<Method> ms;
     const size_t n = cto_function_count();
@@ -336,10 +367,11 @@ std::vector<Method> collect() {
         ms.push_back(catalogue_method(f));
         if (f->n_outputs > 1) ms.push_back(outcome_method(f, ms.back()));
     }
-    Method range, range_outcome, swing;
-    if (!range_method(false, range) || !range_method(true, range_outcome) || !swing_method(swing))
+    Method range, range_outcome, swing, path;
+    if (!range_method(false, range) || !range_method(true, range_outcome) ||
+        !swing_method(swing) || !offer_path_method(path))
         return {};
-    for (Method *m : {&range, &range_outcome, &swing}) ms.push_back(*m);
+    for (Method *m : {&range, &range_outcome, &swing, &path}) ms.push_back(*m);
     ms.push_back(probe_method());
     ms.push_back(reason_method());
     return ms;

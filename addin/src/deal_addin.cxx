@@ -14,9 +14,9 @@
 //        no convergence   -> sheet::NoConvergenceException   -> Err:523
 //        internal error   -> RuntimeException                -> #VALUE! (Err:519)
 //      In an array result each element carries its own code as an error NaN.
-// DEALRANGE, DEALRANGEOUTCOME and DEALSWING (src/ranges.hxx) are not catalogue rows;
-// their methods forward to share_range and share_swing below, with the same conversion
-// and error values.
+// DEALRANGE, DEALRANGEOUTCOME, DEALSWING (src/ranges.hxx) and DEALOFFERPATH
+// (src/offers.hxx) are not catalogue rows; their methods forward to share_range,
+// share_swing and offer_path below, with the same conversion and error values.
 // Validation and mathematics live in the library only.
 #include <counteroffer/counteroffer.h>
 
@@ -44,6 +44,7 @@
 #include <vector>
 
 #include "convert.hxx"
+#include "offers.hxx"
 #include "ranges.hxx"
 
 namespace {
@@ -343,7 +344,7 @@ class DealFunctions
         }
     }
 
-    // The functions that are not catalogue rows (src/ranges.hxx); args
+    // The functions that are not catalogue rows (src/ranges.hxx, src/offers.hxx); args
     // in the order of src/range_args.h.
     css::uno::Any share_range(const Arg *args, bool outcome) {
         return guarded([&] {
@@ -352,6 +353,9 @@ class DealFunctions
     }
     css::uno::Any share_swing(const Arg *args) {
         return guarded([&] { return range_swing(table_, args); });
+    }
+    css::uno::Any offer_path(const Arg *args) {
+        return guarded([&] { return offer_path_rows(table_, args); });
     }
 
     // DEALCALLPROBE: the same argument conversion as every function, no model.

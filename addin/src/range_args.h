@@ -1,7 +1,8 @@
 // The arguments of the add-in's functions that are not catalogue rows: DEALRANGE,
-// DEALRANGEOUTCOME and DEALSWING (share_range, share_swing).  Shared by the generator
-// (gen/addin_gen.cpp: IDL, Function Wizard text) and the glue (src/ranges.hxx), so both
-// agree on names, order and limits.  Plain C++: no UNO types.
+// DEALRANGEOUTCOME and DEALSWING (share_range, share_swing) and DEALOFFERPATH (the rows
+// of offer_path).  Shared by the generator (gen/addin_gen.cpp: IDL, Function Wizard
+// text) and the glue (src/ranges.hxx, src/offers.hxx), so both agree on names, order
+// and limits.  Plain C++: no UNO types.
 #ifndef CTO_ADDIN_RANGE_ARGS_H
 #define CTO_ADDIN_RANGE_ARGS_H
 
@@ -44,6 +45,12 @@ inline const ExtraArg kRangeExtra[kRangeExtras] = {
 // The probabilities of DEALRANGEOUTCOME when none are given, and DEALRANGE's default.
 constexpr double kDefaultProbability = 0.5;
 constexpr int kDefaultDigits = 3;
+
+// DEALOFFERPATH: at most this many rows (rounds) are returned; a longer path (or one
+// without a deadline) gives its first rounds.  Columns: round, offer, cutoff, probability
+// in that round, probability by that round.
+constexpr int64_t kOfferPathMaxRows = 1000;
+constexpr int kOfferPathColumns = 5;
 
 }  // namespace cto_addin
 

@@ -1,11 +1,13 @@
-// Glue test of DEALRANGE, DEALRANGEOUTCOME and DEALSWING (src/ranges.hxx) against
-// stand-ins for cto_share_range and cto_share_swing that record what the glue hands over
-// and return the status a test asks for.  The expected conversions are the rules of
-// addin/README.md "Ranges"; the expected error values those of "Error values" (Calc's
-// codes from LibreOffice 7.4 include/formula/errorcodes.hxx).  Included by glue_test.cxx.
+// Glue test of DEALRANGE, DEALRANGEOUTCOME, DEALSWING and DEALOFFERPATH (src/ranges.hxx,
+// src/offers.hxx) against stand-ins for cto_share_range, cto_share_swing and
+// cto_offer_path_rows that record what the glue hands over and return the status a test
+// asks for.  The expected conversions are the rules of addin/README.md "Ranges" and
+// "DEALOFFERPATH"; the expected error values those of "Error values" (Calc's codes from
+// LibreOffice 7.4 include/formula/errorcodes.hxx).  Included by glue_test.cxx.
 
 // ---- stand-ins ------------------------------------------------------------------
 namespace {
+const char *const kOfferers[] = {"seller", "buyer", nullptr};
 const double kAbsent = -HUGE_VAL;
 // The inputs of share_range under their catalogue names (labels "In1".."In14").
 const cto_arg_info kRangeFakeArgs[] = {
@@ -25,12 +27,26 @@ const cto_arg_info kRangeFakeArgs[] = {
     {"continuous", "In14", "h", CTO_ARG_BOOL, 1, 0.0, 0, nullptr}};
 const cto_function_info kRangeFake = {sizeof(cto_function_info), 1, "rates_fake", "", "s", "f",
                                       "src", "st", 14, kRangeFakeArgs, 1, kOuts};
+const cto_arg_info kOfferArgs[] = {
+    {"private_low", "Low", "h", CTO_ARG_REAL, 0, 0.0, 0, nullptr},
+    {"private_high", "High", "h", CTO_ARG_REAL, 0, 0.0, 0, nullptr},
+    {"offerer_factor", "Of", "h", CTO_ARG_UNIT, 0, 0.0, 0, nullptr},
+    {"responder_factor", "Rf", "h", CTO_ARG_UNIT, 0, 0.0, 0, nullptr},
+    {"rounds", "Rounds", "h", CTO_ARG_COUNT, 1, 0.0, 0, nullptr},
+    {"known_value", "Known", "h", CTO_ARG_REAL, 1, 0.0, 0, nullptr},
+    {"offerer", "Offerer", "h", CTO_ARG_CHOICE, 1, 0.0, 0, kOfferers}};
+const cto_function_info kOfferFake = {sizeof(cto_function_info), 2, "offer_path", "", "s", "f",
+                                      "src", "st", 7, kOfferArgs, 2, kOuts};
+
 struct Recorded {
     cto_range_input in;
     cto_range_options opt;
     int status = CTO_OK;       // what the stand-ins return
     int bad = -1;              // the index they report for CTO_E_INVALID
-    int64_t path_rounds = 5000; // the stand-in swing's rows: none when 0
+    double offer_args[7];
+    int64_t offer_rounds = 0, offer_capacity = 0;
+    int offer_offerer = -1;
+    int64_t path_rounds = 5000; // rounds the stand-in path has
 } rec;
 
 // The library's rules, simulated: a fixed input needs a number, a range low <= high.
@@ -96,6 +112,21 @@ int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
     out->row[0] = {1, 0.4, 0.2, 0.2, CTO_OK, CTO_E_NO_DEAL};
     out->row[1] = {0, 0.6, 0.7, 0.1, CTO_OK, CTO_OK};
     return out->status;
+}
+// Row t (0-based): offer 10 + t, cutoff 5 + t, probabilities 0.001 and 0.001 (t + 1).
+int cto_offer_path_rows(double lo, double hi, double df, double dr, int64_t rounds, double known,
+                        int offerer, cto_offer_row *rows, int64_t cap, cto_offer_outcome *out) {
+    const double a[] = {lo, hi, df, dr, static_cast<double>(rounds), known,
+                        static_cast<double>(offerer)};
+    std::memcpy(rec.offer_args, a, sizeof a);
+    rec.offer_rounds = rounds;
+    rec.offer_capacity = cap;
+    rec.offer_offerer = offerer;
+    out->rows_written = std::min(cap, rec.path_rounds);
+    for (int64_t t = 0; t < out->rows_written; ++t)
+        rows[t] = {10.0 + static_cast<double>(t), 5.0 + static_cast<double>(t), 0.001,
+                   0.001 * static_cast<double>(t + 1)};
+    return rec.status;
 }
 }
 
@@ -300,4 +331,43 @@ void check_swing(DealFunctions &f) {
     check(r.kind == Outcome::Illegal && r.position == 0, "DEALSWING: low above high is Err:502");
 }
 
+Result path(DealFunctions &f, std::initializer_list<css::uno::Any> opt, Mixed first = one(num(0.0))) {
+    const Mixed req[] = {first, one(num(1.0)), one(num(0.9)), one(num(0.9))};
+    std::vector<css::uno::Any> o(opt);
+    o.resize(3);
+    const Arg args[] = {Arg(req[0]), Arg(req[1]), Arg(req[2]), Arg(req[3]),
+                        Arg(o[0]),   Arg(o[1]),   Arg(o[2])};
+    return call([&] { return f.offer_path(args); });
+}
+
+void check_offer_path(DealFunctions &f) {
+    rec.status = CTO_OK;
+    Result r = path(f, {});
+    css::uno::Sequence<css::uno::Sequence<double>> m;
+    check((r.value >>= m) && m.getLength() == 1000 && m[0].getLength() == 5 &&
+              rec.offer_capacity == 1000,
+          "DEALOFFERPATH: at most 1,000 rows of 5 columns");
+    if (m.getLength() == 1000)
+        check(m[0][0] == 1.0 && m[0][1] == 10.0 && m[0][2] == 5.0 && m[0][3] == 0.001 &&
+                  m[999][0] == 1000.0 && m[999][4] == 1.0,
+              "DEALOFFERPATH: round, offer, cutoff, in that round, by that round");
+    rec.path_rounds = 3;
+    r = path(f, {num(3.0), num(0.25), text("Buyer")});
+    check((r.value >>= m) && m.getLength() == 3 && rec.offer_rounds == 3 &&
+              rec.offer_offerer == 1 && rec.offer_args[5] == 0.25,
+          "DEALOFFERPATH: rounds, known value, offerer as text; a row per round");
+    rec.path_rounds = 5000;
+    check(path(f, {num(2.5)}).kind == Outcome::Illegal, "rounds not whole: Err:502 (the table's check)");
+    check(path(f, {}, cells(1, 2, {num(0.0), num(1.0)})).kind == Outcome::Illegal,
+          "a range for a single value: Err:502");
+    check(path(f, {}, one(text("x"))).kind == Outcome::Illegal, "text: Err:502");
+    const int statuses[] = {CTO_E_NO_DEAL, CTO_E_INDETERMINATE, CTO_E_NO_CONVERGENCE, CTO_E_INTERNAL};
+    const Outcome want[] = {Outcome::Void, Outcome::NaN, Outcome::NoConv, Outcome::Runtime};
+    for (int i = 0; i < 4; ++i) {
+        rec.status = statuses[i];
+        check(path(f, {}).kind == want[i],
+              "DEALOFFERPATH: no deal #N/A, indeterminate #NUM!, no convergence Err:523, internal #VALUE!");
+    }
+    rec.status = CTO_OK;
+}
 } // namespace

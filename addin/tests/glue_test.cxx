@@ -1,5 +1,5 @@
 // Test of the add-in's UNO glue: status -> Calc error mapping and argument conversion
-// (the range functions: glue_ranges.hxx).
+// (the range and offer-path functions: glue_ranges.hxx).
 //
 // The glue (src/deal_addin.cxx) is compiled here against a stand-in for the library's
 // table-driven interface: one function whose second argument selects the status
@@ -36,6 +36,15 @@ const char *cto_status_message(int) { return "stand-in"; }
 // status 9 means "ok but not finite" (a defect the glue must not show as a number).
 int cto_call(int id, const double *a, double *o, int *bad) {
     if (bad) *bad = -1;
+    if (id == 2) { // offer_path: the table's checks (a number each; rounds whole)
+        for (int j = 0; j < 7; ++j)
+            if (std::isnan(a[j]) || (j == 4 && a[j] != std::floor(a[j]))) {
+                if (bad) *bad = j;
+                return CTO_E_INVALID;
+            }
+        o[0] = o[1] = 0.5;
+        return CTO_OK;
+    }
     if (id != 0) {
         o[0] = o[1] = std::nan("");
         return CTO_E_INVALID;
@@ -247,11 +256,11 @@ constexpr int kArgProbOpt = cto_addin::kArgProbability - 3, kArgShapeOpt = cto_a
 } // namespace
 #include "glue_ranges.hxx"
 
-// The stand-in table: the function above and the inputs of share_range.
+// The stand-in table: the function above, the inputs of share_range, offer_path.
 extern "C" {
-size_t cto_function_count(void) { return 2; }
+size_t cto_function_count(void) { return 3; }
 const cto_function_info *cto_function_at(size_t i) {
-    return i == 0 ? &kFake : i == 1 ? &kRangeFake : nullptr;
+    return i == 0 ? &kFake : i == 1 ? &kRangeFake : i == 2 ? &kOfferFake : nullptr;
 }
 }
 
@@ -264,6 +273,7 @@ int main() {
     check_range_errors(*f);
     check_range_arrays(*f);
     check_swing(*f);
+    check_offer_path(*f);
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;
 }

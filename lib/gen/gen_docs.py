@@ -71,6 +71,8 @@ def addin_functions(functions: List[Function]) -> str:
                 "with the columns label, estimate, 95% half-width, digits (see \"Ranges\") |")
     rows.append("| DEALSWING | getShareSwing | array, a row per uncertain input: its name, own share "
                 "at its low, at its high, largest swing first (share_swing) |")
+    rows.append("| DEALOFFERPATH | getOfferPath | array, a row per round of offer_path: round, offer, "
+                "cutoff, probability in that round, by that round (see \"DEALOFFERPATH\") |")
     rows.append("| DEALREASON | getReason | why a DEAL function gives its result, in words: the "
                 "function's name, then its arguments (see \"Why a cell fails\") |")
     rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "

@@ -371,12 +371,14 @@ def array_rows():
 
 
 def ranges_rows():
-    """DEALRANGE, DEALRANGEOUTCOME and DEALSWING (tests/sheets/range_cases.py): a matrix
-    formula first (rows 2-4), then single cells."""
+    """DEALRANGE, DEALRANGEOUTCOME, DEALSWING and DEALOFFERPATH (tests/sheets/range_cases.py):
+    two matrix formulas first (rows 2-4 and 5-6), then single cells."""
     rows = range_cases.range_matrix_rows(share_rates, 2)
-    for row in rows:
-        row["formula_text_row"] = 2
-    cases = range_cases.range_values(share_rates, Text) + range_cases.ERRORS
+    rows += range_cases.offer_matrix_rows()
+    for i, row in enumerate(rows):
+        row["formula_text_row"] = 2 if i < 3 else 5
+    cases = (range_cases.range_values(share_rates, Text) + range_cases.offer_values()
+             + range_cases.ERRORS)
     return rows + scalar_rows(cases)
 
 
@@ -385,7 +387,7 @@ def main():
         "addin_values.fods": ("add-in values", scalar_rows(VALUES)),
         "addin_errors.fods": ("add-in error values", scalar_rows(ERRORS)),
         "addin_arrays.fods": ("add-in whole-column form", array_rows()),
-        "addin_ranges.fods": ("add-in ranges", ranges_rows()),
+        "addin_ranges.fods": ("add-in ranges and offer path", ranges_rows()),
     }
     for name, (title, rows) in files.items():
         with open(os.path.join(HERE, name), "w", encoding="utf-8") as f:

@@ -1,17 +1,22 @@
-"""The cases of the add-in's range sheet (tests/sheets/addin_ranges.fods): DEALRANGE,
-DEALRANGEOUTCOME and DEALSWING.  Written by make_sheets.py.
+"""The cases of the add-in's range and offer-path sheet (tests/sheets/addin_ranges.fods):
+DEALRANGE, DEALRANGEOUTCOME, DEALSWING and DEALOFFERPATH.  Written by make_sheets.py.
 
 Expected values come from outside the project: mpmath at 50 digits (the Rubinstein
 share at the rates, the inverse CDFs of REFERENCE-PRIVATE C.1, a quadrature for a mean),
-the check values of REFERENCE-PRIVATE C.8.1, and the closed form of another function in
-the sheet (DEALSHARERATE).  A quantile of own share is the
+the check values of REFERENCE-PRIVATE C.8.1, the closed form of another function in the
+sheet (DEALSHARERATE), and the 50-digit reference row of the two-round offer path
+(tests/reference/private/offer_path.csv, first row).  A quantile of own share is the
 share at the input's quantile because the share is monotone in each rate
 (REFERENCE-PRIVATE C.8.3 uses the same fact); its tolerance is the three significant
 digits the estimator targets (REFERENCE-PRIVATE C.6), or the reported 95% half-width.
 """
+import csv
+import os
 
 import mpmath as mp
 
+HERE = os.path.dirname(os.path.abspath(__file__))
+OFFER_CSV = os.path.join(HERE, "..", "reference", "private", "offer_path.csv")
 # the 15 positions after the three required inputs: 11 optional inputs, then probability
 SKIP_TO_PROB = ";" * 12
 
@@ -27,6 +32,18 @@ def tri_inv(lo, m, hi, u):
     if u < fm:
         return lo + mp.sqrt(u * (hi - lo) * (m - lo))
     return hi - mp.sqrt((1 - u) * (hi - lo) * (hi - m))
+
+
+def offer_row():
+    """The two-round row: [0, 1], factors 0.9, seller offers, cost 0."""
+    with open(OFFER_CSV, newline="", encoding="utf-8") as f:
+        for row in csv.DictReader(f):
+            if (row["private_low"], row["private_high"], row["offerer_factor"],
+                    row["responder_factor"], row["rounds"], row["known_value"],
+                    row["offerer"]) == ("0.0", "1.0", "0.9", "0.9", "2", "0.0", "0"):
+                return {k: mp.mpf(v) for k, v in row.items()
+                        if k not in ("status", "source", "offerer")}
+    raise SystemExit("offer_path.csv: the two-round reference row is missing")
 
 
 def range_values(share_rates, text):
@@ -121,6 +138,48 @@ def range_matrix_rows(share_rates, first_row):
     return rows
 
 
+def offer_values():
+    """DEALOFFERPATH against the 50-digit two-round reference row."""
+    ref = offer_row()
+    path = "DEALOFFERPATH(0;1;0.9;0.9;2)"
+    src = ("tests/reference/private/offer_path.csv row 1 (50-digit backward induction; "
+           "Sobel & Takahashi 1983): ")
+    uni = "; responder values uniform on [0, 1]: P = 1 - cutoff (REFERENCE-PRIVATE B.1)"
+    return [
+        ("offer path: the opening offer", "=INDEX(%s;1;2)" % path, ref["opening_offer"],
+         src + "opening offer 0.4653846153846154", 1e-14),
+        ("offer path: the second offer", "=INDEX(%s;2;2)" % path, ref["offer_2"],
+         src + "offer_2", 1e-14),
+        ("offer path: cutoff after round 1", "=INDEX(%s;1;3)" % path, ref["cutoff_1"],
+         src + "cutoff_1", 1e-14),
+        ("offer path: cutoff after round 2", "=INDEX(%s;2;3)" % path, ref["cutoff_2"],
+         src + "cutoff_2", 1e-14),
+        ("offer path: agreement in round 1", "=INDEX(%s;1;4)" % path, 1 - ref["cutoff_1"],
+         src + "1 - cutoff_1" + uni, 1e-14),
+        ("offer path: agreement by round 2 = 15/26", "=INDEX(%s;2;5)" % path,
+         mp.mpf(15) / 26, src + "agreement_probability 15/26", 1e-14),
+        ("offer path: round numbers", "=INDEX(%s;2;1)" % path, 2.0, "the second row is round 2",
+         0.0),
+        ("offer path: a row per round", "=ROWS(%s)" % path, 2.0, "2 rounds: 2 rows", 0.0),
+        ("offer path without a deadline: the first 1,000 rounds",
+         "=ROWS(DEALOFFERPATH(0;1;0.9;0.9))", 1000.0,
+         "addin/README.md: at most 1,000 rows", 0.0),
+    ]
+
+
+def offer_matrix_rows():
+    """The offer column of the two-round path in one matrix formula (INDEX column 2)."""
+    ref = offer_row()
+    src = "tests/reference/private/offer_path.csv row 1 (50 digits): "
+    return [
+        {"case": "offer column, round 1", "expected": float(ref["opening_offer"]),
+         "source": src + "opening_offer", "tol": 1e-14,
+         "formula": "=INDEX(DEALOFFERPATH(0;1;0.9;0.9;2);0;2)", "matrix_rows": 2},
+        {"case": "offer column, round 2", "expected": float(ref["offer_2"]),
+         "source": src + "offer_2", "tol": 1e-14},
+    ]
+
+
 BAD = "CATALOGUE.md Additions: bad input -> invalid argument"
 ERRORS = [
     ("range: low above high", "=DEALRANGE(0.08;{0.16;0.04};30)", "Err:502",
@@ -147,4 +206,16 @@ ERRORS = [
      "Err:523", "15 significant digits are beyond the cap of 16 x 2^20 points (REFERENCE-PRIVATE "
      "C.6: precision_not_reached, never a silent rough number)"),
     ("swing: low above high", "=DEALSWING(0.08;{0.16;0.04};30)", "Err:502", BAD),
+    ("offer path: low above high", "=DEALOFFERPATH(1;0;0.9;0.9;2)", "Err:502",
+     BAD + " (private_low > private_high)"),
+    ("offer path: rounds not whole", "=DEALOFFERPATH(0;1;0.9;0.9;2.5)", "Err:502",
+     BAD + " (rounds not whole)"),
+    ("offer path: factor above 1", "=DEALOFFERPATH(0;1;1.5;0.9;2)", "Err:502",
+     BAD + " (factors outside [0, 1])"),
+    ("offer path: text", "=DEALOFFERPATH(\"x\";1;0.9;0.9;2)", "Err:502",
+     "CATALOGUE.md: text where a number is needed is an error value"),
+    ("offer path: unknown offerer", "=DEALOFFERPATH(0;1;0.9;0.9;2;0;\"broker\")", "Err:502",
+     BAD + " (an unknown offerer)"),
+    ("offer path: no type gains", "=DEALOFFERPATH(0;1;0.9;0.9;2;2)", "#N/A",
+     "REFERENCE-PRIVATE B.6: the cost 2 is above every value: no deal"),
 ]
