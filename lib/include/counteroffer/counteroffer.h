@@ -14,8 +14,9 @@
  *   - The return value is a status (CTO_OK = 0 on success).
  *   - The output is written on every path: a value on CTO_OK, NaN on
  *     CTO_E_INVALID / CTO_E_INDETERMINATE / CTO_E_NO_CONVERGENCE / CTO_E_INTERNAL,
- *     and own's no-deal payoff on CTO_E_NO_DEAL.  A NULL output pointer gives
- *     CTO_E_INVALID (nothing can be written).
+ *     and own's no-deal payoff on CTO_E_NO_DEAL (NaN for a result that has no value
+ *     without a deal: cto_expected_agreement_round, cto_opening_offer).  A NULL
+ *     output pointer gives CTO_E_INVALID (nothing can be written).
  *   - A value returned with CTO_OK is finite.
  *   - When several statuses apply, the first of invalid, no deal, indeterminate wins
  *     (e.g. both factors 1 with a surplus of 0 is no deal).
