@@ -292,3 +292,31 @@ TEST_CASE("Gap case properties on random inputs", "[offers]") {
         CHECK(std::fabs(bv - p.t.responder_value) <= 2e-4 * (hi - c));
     }
 }
+
+TEST_CASE("Gap case limits: no convergence with NaN totals; no deal in the mirror case", "[offers]") {
+    // A gap of 1% of the highest gain with a very patient offerer needs more stages and
+    // pieces than the fixed work space holds: reported, never a half-built answer.
+    OfferRow rows[4] = {{1, 1, 1, 1}, {1, 1, 1, 1}, {1, 1, 1, 1}, {1, 1, 1, 1}};
+    OfferTotals t;
+    int bad = 7;
+    CHECK(offer_path(0.01, 1, 0.999, 0.9, 0, 0, kOffererSeller, rows, 4, &t, &bad) ==
+          CTO_E_NO_CONVERGENCE);
+    CHECK(bad == -1);
+    CHECK(t.rows_written == 0);
+    CHECK(std::isnan(t.agreement_probability));
+    CHECK(std::isnan(t.offerer_value));
+    CHECK(std::isnan(t.opening_offer));
+    double x = 0;
+    CHECK(opening_offer(0.01, 1, 0.999, 0.9, 0, 0, kOffererSeller, &x, nullptr) == CTO_E_NO_CONVERGENCE);
+    CHECK(std::isnan(x));
+    // Buyer offers with every cost at or above the buyer's value: no deal (B.6 mirrored).
+    const Path m = seller(2, 3, 0.9, 0.9, 4, 2, kOffererBuyer);
+    CHECK(m.status == CTO_E_NO_DEAL);
+    CHECK(m.t.agreement_probability == 0.0);
+    CHECK(m.t.rows_written == 0);
+    // ... and a known cost below the value: one offer at that cost, accepted.
+    const Path k = seller(1.5, 1.5, 0.9, 0.9, 0, 2, kOffererBuyer);
+    CHECK(k.status == CTO_OK);
+    CHECK(k.rows[0].offer == 1.5);
+    CHECK(k.t.offerer_value == 0.5);
+}

@@ -5,7 +5,11 @@
 // seller offers and, written separately, in cost space for the mirror case), the
 // stationary equilibrium as the fixed point of one such stage, and a Monte Carlo of
 // 4 x 10^6 responder types choosing their best round on each path (REFERENCE-PRIVATE D.B;
-// Sobel & Takahashi 1983; Stokey 1981; Gul, Sonnenschein & Wilson 1986).
+// Sobel & Takahashi 1983; Stokey 1981; Gul, Sonnenschein & Wilson 1986).  The gap rows
+// (the last 16) come from a separate mpmath implementation of the piecewise recursion
+// whose envelope is cut at every pairwise crossing of the candidates, each stage checked
+// by direct maximisation of the stage objective at random states (golden section, no
+// candidates), and the same Monte Carlo (Fudenberg, Levine & Tirole 1985).
 //
 // Tolerance: relative error <= 1e-14, or absolute error <= 1e-14 x (private_high -
 // private_low) for money below that scale.  The worst error per output is printed.

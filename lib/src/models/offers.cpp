@@ -193,7 +193,11 @@ int offer_path(double private_low, double private_high, double offerer_factor,
     const int st = solve_canonical(p, rows, capacity, out);
     if (st == CTO_E_NO_CONVERGENCE) clear_totals(out, kNaN);
     const bool seller = offerer == kOffererSeller;
-    to_money(known_value, seller ? 1.0 : -1.0, rows, out);
+    // The gap case measures offers above the lowest gain: the base is then the end of the
+    // private interval itself (exact), not the known value plus a rounded gap.
+    const bool gap = out->regime == kPathGap || out->regime == kPathClosed;
+    const double base = gap ? (seller ? private_low : private_high) : known_value;
+    to_money(base, seller ? 1.0 : -1.0, rows, out);
     return st;
 }
 

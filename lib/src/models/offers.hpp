@@ -129,8 +129,9 @@ struct Canon {
     int64_t rounds;  // 0: no deadline
 };
 
-// The gap case (a > 0): rows in shifted units (offer and cutoff relative to the cost),
-// totals likewise.  Returns a CTO_* status.
+// The gap case (a > 0): offers, cutoffs, the opening offer and the last cutoff measured
+// above the gap (gain - a: the money value is private_low + x for seller offers,
+// private_high - x for buyer offers); values in gain units.  Returns a CTO_* status.
 int gap_path(const Canon &p, OfferRow *rows, int64_t capacity, OfferTotals *out);
 
 }  // namespace offers_detail

@@ -30,7 +30,8 @@
 //
 // Work space: fixed arrays on the stack (about 220 KB).  The oldest stages are dropped
 // when it is full; a path that needs a dropped stage, a stage with more than kMaxPieces
-// pieces, or more than kMaxBuilt stages reports no convergence.
+// pieces, more than kMaxBuilt stages or more than kMaxWork candidate evaluations (a gap
+// that is tiny against the highest gain, with a patient offerer) reports no convergence.
 #include <algorithm>
 #include <cmath>
 
@@ -46,6 +47,7 @@ constexpr int kMaxCand = 4 * kMaxPieces;
 constexpr int kSlots = 400;        // stages kept (the oldest are dropped first)
 constexpr int64_t kMaxBuilt = 20000;    // stages built before giving up
 constexpr int64_t kMaxRounds = 1000000;  // rounds of a path without a deadline
+constexpr int64_t kMaxWork = 200000000;  // candidate evaluations (about 0.3 s) per call
 
 struct Piece {
     double r;        // right end; the left end is the previous piece's r (or a)
@@ -68,10 +70,15 @@ struct Work {
     int slots = 0;
     int64_t first_n = 1, last_n = 0;  // stages kept: first_n .. last_n
     int64_t widest = 0;               // most pieces in a stage built
+    int64_t work = 0;                 // candidate evaluations so far
     Cand cand[kMaxCand];
     double ev[2 * kMaxCand + 2];
     Piece next[kMaxPieces + 1];
-    double a, H, ds, db;
+    double a = 0.0;  // the lowest state: states are gains above the gap, y in [0, H]
+    double H;        // L, the spread of the types
+    double ds, db;
+    double gap;      // the gap a (prices are gap + the functions below)
+    double lin;      // (1 - d_s) gap: what delaying the sure part of the sale costs
 };
 
 // Adds the candidate with cutoff x0 + x1 k on [s, e] for piece (f, w) of the last stage.
@@ -86,8 +93,8 @@ void add_cand(Work &w, int &m, double s, double e, double x0, double x1, double 
     const double h0 = -x0, h1 = 1.0 - x1;  // k - x
     const double wa = pc.w0 + x0 * (pc.w1 + pc.w2 * x0);
     const double wb = (pc.w1 + 2.0 * pc.w2 * x0) * x1, wc = pc.w2 * x1 * x1;
-    c.v0 = c.g0 * h0 + w.ds * wa;
-    c.v1 = (c.g0 * h1 + c.g1 * h0) + w.ds * wb;
+    c.v0 = c.g0 * h0 + w.ds * wa - w.lin * x0;
+    c.v1 = (c.g0 * h1 + c.g1 * h0) + w.ds * wb - w.lin * x1;
     c.v2 = c.g1 * h1 + w.ds * wc;
 }
 
@@ -95,7 +102,7 @@ void add_cand(Work &w, int &m, double s, double e, double x0, double x1, double 
 void add_vertex(Work &w, int &m, double l, double r, double f0, double f1, const Piece &pc) {
     const double A = f1 - w.ds * pc.w2;
     if (!(A > 0.0)) return;
-    const double x0 = (w.ds * pc.w1 - f0) / (2.0 * A), x1 = f1 / (2.0 * A);
+    const double x0 = (w.ds * pc.w1 - f0 - w.lin) / (2.0 * A), x1 = f1 / (2.0 * A);
     double s = w.a, e = w.H;
     if (x1 > 0.0) {
         s = std::max(s, (l - x0) / x1);
@@ -215,6 +222,8 @@ bool build_stage(Work &w) {
         if (!(u1 > u0)) continue;
         double k = u0;
         for (int guard = 0; guard < 4 * kMaxCand; ++guard) {
+            w.work += 2 * m;
+            if (w.work > kMaxWork) return false;
             const int b = best_at(w, m, k, u1);
             if (b < 0) return false;
             const double next = overtaken(w, m, b, k, u1);
@@ -235,14 +244,16 @@ bool build_stage(Work &w) {
     return true;
 }
 
+// One round left: offer the gap to all (y <= gap), or (gap + y)/2, i.e. gap + (y - gap)/2,
+// with value (y - gap)^2/4 above the sure part gap x y.  Forced: the gap to all.
 void first_stage(Work &w, bool forced) {
-    const double a = w.a, H = w.H;
+    const double g = w.gap, H = w.H;
     int np = 0;
-    if (forced || 2.0 * a >= H) {
-        w.arena[np++] = {H, a, 0.0, a, 0.0, -a * a, a, 0.0};
+    if (forced || g >= H) {
+        w.arena[np++] = {H, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0};
     } else {
-        w.arena[np++] = {2.0 * a, a, 0.0, a, 0.0, -a * a, a, 0.0};
-        w.arena[np++] = {H, 0.0, 0.5, 0.0, 0.5, 0.0, 0.0, 0.25};
+        w.arena[np++] = {g, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0};
+        w.arena[np++] = {H, -0.5 * g, 0.5, -0.5 * g, 0.5, 0.25 * g * g, -0.5 * g, 0.25};
     }
     w.slots = 1;
     w.off[0] = 0;
@@ -260,8 +271,9 @@ bool same_stage(const Work &w) {
         const Piece &p = w.arena[a0 + i], &q = w.arena[b0 + i];
         const double d[] = {p.r - q.r, p.c0 - q.c0, p.c1 - q.c1, p.p0 - q.p0,
                             p.p1 - q.p1, p.w0 - q.w0, p.w1 - q.w1, p.w2 - q.w2};
-        for (double x : d)
-            if (std::fabs(x) > 1e-15) return false;
+        const double m[] = {p.r, p.c0, p.c1, p.p0, p.p1, p.w0, p.w1, p.w2};
+        for (int j = 0; j < 8; ++j)
+            if (std::fabs(d[j]) > 1e-15 * std::max(1.0, std::fabs(m[j]))) return false;
     }
     return true;
 }
@@ -288,7 +300,8 @@ const Piece *lookup(const Work &w, int64_t n, double k) {
 struct Walk {
     bool ok = true;  // false: a stage needed was dropped, or the path did not end
     int64_t rounds = 0, used = 0;
-    double mass = 0, round_sum = 0, offerer = 0, responder = 0, first = kNaN, last = kNaN;
+    double mass = 0, round_sum = 0, disc_mass = 0, offerer = 0, responder = 0;
+    double first = kNaN, last = kNaN;  // prices and states above the gap
 };
 
 template <class StageOf>
@@ -310,6 +323,7 @@ Walk walk(const Work &w, double len, int64_t limit, StageOf stage_of, OfferRow *
         if (t == 1) r.first = price;
         r.mass += pi;
         r.round_sum += static_cast<double>(t) * pi;
+        r.disc_mass += dso * pi;    // the sure part: gap x discounted mass
         r.offerer += dso * price * pi;
         r.responder += dbo * pi * (0.5 * (k + kn) - price);
         if (t <= cap) rows[t - 1] = {price, kn, pi, std::min(r.mass, 1.0)};
@@ -324,21 +338,24 @@ Walk walk(const Work &w, double len, int64_t limit, StageOf stage_of, OfferRow *
     return r;
 }
 
-void totals(const Walk &r, int64_t cap, int64_t stages, int64_t pieces, OfferTotals *o) {
+// Totals in money (gain units of the canonical problem): the offerer's value is the sure
+// part, gap x the discounted mass, plus the scaled margin above the gap.
+void totals(const Walk &r, const Work &w, int64_t cap, double S, double gap, OfferTotals *o) {
     o->regime = kPathGap;
     o->rounds_used = r.used;
     o->rows_written = std::min(r.used, cap);
-    o->stages = stages;
-    o->pieces = pieces;
+    o->stages = w.last_n;
+    o->pieces = w.widest;
     o->agreement_probability = std::min(r.mass, 1.0);
     o->expected_round = r.round_sum / r.mass;
-    o->offerer_value = r.offerer;
-    o->responder_value = r.responder;
-    o->opening_offer = r.first;
-    o->last_cutoff = r.last;
+    o->offerer_value = gap * r.disc_mass + S * r.offerer;
+    o->responder_value = S * r.responder;
+    o->opening_offer = S * r.first;
+    o->last_cutoff = S * r.last;
 }
 
-int finite_gap(Work &w, double len, int64_t T, OfferRow *rows, int64_t cap, OfferTotals *o) {
+int finite_gap(Work &w, double len, int64_t T, OfferRow *rows, int64_t cap, double S,
+               double gap, OfferTotals *o) {
     first_stage(w, false);
     while (w.last_n < T && !same_stage(w)) {
         if (w.last_n >= kMaxBuilt || !build_stage(w)) return CTO_E_NO_CONVERGENCE;
@@ -347,13 +364,14 @@ int finite_gap(Work &w, double len, int64_t T, OfferRow *rows, int64_t cap, Offe
     auto stage_of = [&](int64_t t) { return std::min(T - t + 1, top); };
     const Walk r = walk(w, len, T, stage_of, rows, cap);
     if (!r.ok) return CTO_E_NO_CONVERGENCE;
-    totals(r, cap, w.last_n, w.widest, o);
+    totals(r, w, cap, S, gap, o);
     return CTO_OK;
 }
 
 // No deadline: forced terminal stage; stages are built until two in a row are the same
 // functions; that stage is then the stationary equilibrium and serves every round.
-int endless_gap(Work &w, double len, OfferRow *rows, int64_t cap, OfferTotals *o) {
+int endless_gap(Work &w, double len, OfferRow *rows, int64_t cap, double S, double gap,
+                OfferTotals *o) {
     first_stage(w, true);
     do {
         if (w.last_n >= kMaxBuilt || !build_stage(w)) return CTO_E_NO_CONVERGENCE;
@@ -361,37 +379,38 @@ int endless_gap(Work &w, double len, OfferRow *rows, int64_t cap, OfferTotals *o
     const int64_t N = w.last_n;
     const Walk r = walk(w, len, kMaxRounds, [&](int64_t) { return N; }, rows, cap);
     if (!r.ok || r.last != w.a) return CTO_E_NO_CONVERGENCE;
-    totals(r, cap, N, w.widest, o);
+    totals(r, w, cap, S, gap, o);
     return CTO_OK;
 }
 
 }  // namespace
 
 int gap_path(const Canon &p, OfferRow *rows, int64_t cap, OfferTotals *o) {
+    // States, cutoffs and offers are measured above the gap (y = gain - a in [0, L]), so a
+    // spread that is tiny against the gap keeps its digits; scaled by a power of two.
     int e = 0;
-    (void)std::frexp(p.h, &e);
-    const double S = std::ldexp(1.0, std::min(e, 1023));  // exact: gains scaled into (1/2, 1]
-    if (p.rounds == 0 && p.db == 1.0) {  // patient responder: offer a to all at once
+    (void)std::frexp(p.len, &e);
+    const double S = std::ldexp(1.0, std::min(e, 1023));  // exact: L / S in (1/2, 1]
+    if (p.rounds == 0 && p.db == 1.0) {  // patient responder: offer the gap to all at once
         o->regime = kPathClosed;
         o->rounds_used = 1;
         o->rows_written = std::min<int64_t>(1, cap);
-        if (cap > 0) rows[0] = {p.a, p.a, 1.0, 1.0};
+        if (cap > 0) rows[0] = {0.0, 0.0, 1.0, 1.0};
         o->agreement_probability = o->expected_round = 1.0;
-        o->offerer_value = o->opening_offer = o->last_cutoff = p.a;
+        o->offerer_value = p.a;
+        o->opening_offer = o->last_cutoff = 0.0;
         o->responder_value = 0.5 * p.len;
         return CTO_OK;
     }
     Work w;
-    w.a = p.a / S, w.H = p.h / S, w.ds = p.ds, w.db = p.db;
-    const double len = p.len / S;
-    const int st = p.rounds > 0 ? finite_gap(w, len, p.rounds, rows, cap, o)
-                                : endless_gap(w, len, rows, cap, o);
+    w.H = p.len / S, w.ds = p.ds, w.db = p.db;
+    w.gap = std::min(p.a / S, 1e300);  // beyond that the sure part decides alone
+    w.lin = (1.0 - p.ds) * w.gap;
+    const double len = w.H;
+    const int st = p.rounds > 0 ? finite_gap(w, len, p.rounds, rows, cap, S, p.a, o)
+                                : endless_gap(w, len, rows, cap, S, p.a, o);
     if (st != CTO_OK) return st;
     for (int64_t t = 0; t < o->rows_written; ++t) rows[t].offer *= S, rows[t].cutoff *= S;
-    o->offerer_value *= S;
-    o->responder_value *= S;
-    o->opening_offer *= S;
-    o->last_cutoff *= S;
     return CTO_OK;
 }
 

@@ -297,4 +297,9 @@ def table():
         rows.append([repr(float(lo)), repr(float(hi)), repr(float(ds)), repr(float(db)), str(T),
                      repr(float(known)), str(who), "ok"] +
                     [mp.nstr(v, 25) if not mp.isnan(v) else "nan" for v in vals] + [src])
+    import gap_reference  # the gap case: a separate engine, checked stagewise
+    for (lo, hi, ds, db, T, known, who), vals, src in gap_reference.rows():
+        rows.append([repr(float(lo)), repr(float(hi)), repr(float(ds)), repr(float(db)), str(T),
+                     repr(float(known)), str(who), "ok"] +
+                    [mp.nstr(v, 25) if not mp.isnan(v) else "nan" for v in vals] + [src])
     return header, rows
