@@ -26,7 +26,7 @@ C_TYPES = {"bool": "int", "count": "int64_t", "choice": "int"}
 
 _FUNCTION_KEYS = {"id", "name", "calc_name", "summary", "formula", "source", "statuses",
                   "args", "arg", "output", "example", "model", "adapter", "block_kernel",
-                  "outcome", "reference"}
+                  "outcome", "reference", "no_deal_nan"}
 _ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip"}
 
 
@@ -82,6 +82,9 @@ class Function:
     # A reference table in another layout, checked by the function's own tests (a path
     # under tests/reference/); None: tests/reference/<name>.csv in the common layout.
     reference: Optional[str]
+    # The result has no value without a deal (e.g. the expected round of agreement): NaN
+    # with CTO_E_NO_DEAL instead of own's no-deal payoff.
+    no_deal_nan: bool
     adapter: bool  # table thunk and named C entry are hand-written (struct interfaces)
     block_kernel: Optional[str]
     example_scenario: Optional[str]
@@ -210,6 +213,7 @@ def _function(path: pathlib.Path, shared: Dict[str, Arg]) -> Function:
                     source=_str(d, "source", path), statuses=_str(d, "statuses", path),
                     args=tuple(args), outputs=outputs, model=d.get("model", name),
                     outcome=outcome, reference=d.get("reference"),
+                    no_deal_nan=bool(d.get("no_deal_nan", False)),
                     adapter=adapter, block_kernel=d.get("block_kernel"),
                     example_scenario=example.get("scenario"),
                     example_python=(example.get("python") or "").strip("\n") or None,

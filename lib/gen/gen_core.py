@@ -106,6 +106,7 @@ def rows(functions: List[Function]) -> str:
         out.append(f"constexpr const char *kSlip_{f.name}[] = {{")
         out += [f"    {c_string(a.slip)}," for a in f.args]
         out.append("};")
+        out.append(f"constexpr bool kNoDealNan_{f.name} = {'true' if f.no_deal_nan else 'false'};")
         out.append(f"const cto_output_info kOutputs_{f.name}[] = {{")
         out += [f"    {{{c_string(o.name)}, {c_string(o.help)}}}," for o in f.outputs]
         out.append("};")
@@ -226,6 +227,9 @@ def dispatch(functions: List[Function]) -> str:
         out.append("            return st;")
         out.append("        }")
     out += ["        default: *found = false; return -1;", "    }", "}", ""]
+    nan_ids = " || ".join(f"id == {f.id}" for f in functions if f.no_deal_nan) or "false"
+    out += ["// Whether catalogue id's result is NaN, not a payoff, with CTO_E_NO_DEAL.",
+            f"inline bool no_deal_nan(int id) {{ return {nan_ids}; }}", ""]
     adapters = " || ".join(f"id == {f.id}" for f in functions if f.adapter) or "false"
     out += ["// Whether catalogue id has a hand-written struct adapter (no named scalar function).",
             f"inline bool is_adapter(int id) {{ return {adapters}; }}", ""]
@@ -259,7 +263,7 @@ def definitions_json(functions: List[Function]) -> str:
              "outputs": [{"name": o.name, "help": o.help, "words": list(o.words),
                           "type": o.c_type} for o in f.outputs],
              "example": {"scenario": f.example_scenario, "python": f.example_python},
-             "reference": f.reference}
+             "reference": f.reference, "no_deal_nan": f.no_deal_nan}
             for f in functions]
     return json.dumps({"functions": data}, indent=1, ensure_ascii=False) + "\n"
 

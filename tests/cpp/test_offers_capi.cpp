@@ -69,3 +69,18 @@ TEST_CASE("offers through the C ABI: a short buffer, no buffer, bad structs", "[
     CHECK(cto_offer_path(1, 0, 0.9, 0.9, 5, 0, 0, &n) == CTO_E_INVALID);  // low above high
     CHECK(std::isnan(n.agreement_probability));
 }
+
+TEST_CASE("offers through the C ABI: a deadline beyond 10^7 offers is refused, not computed",
+          "[offers_capi]") {
+    // The path costs O(rounds); a cell must never hold Calc for minutes (the add-in's rule:
+    // never hang Calc).  10^7 offers is the documented limit.
+    double v = 0.0;
+    int bad = -1;
+    const cto_function_info *f = cto_function_find("agreement_probability");
+    REQUIRE(f != nullptr);
+    const double args[7] = {0, 1, 0.9, 0.9, 1e12, 0, 0};
+    CHECK(cto_call(f->id, args, &v, &bad) == CTO_E_INVALID);
+    CHECK(bad == 4);
+    CHECK(cto_agreement_probability(0, 1, 0.9, 0.9, INT64_MAX, 0, 0, &v) == CTO_E_INVALID);
+    CHECK(cto_agreement_probability(0, 1, 0.9, 0.9, 10000000, 0, 0, &v) == CTO_OK);
+}

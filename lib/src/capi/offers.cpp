@@ -6,10 +6,6 @@
 
 namespace core = cto::core;
 
-static_assert(sizeof(cto_offer_row) == sizeof(core::OfferRow), "cto_offer_row");
-static_assert(offsetof(cto_offer_row, cumulative_probability) ==
-                  offsetof(core::OfferRow, cumulative_probability),
-              "cto_offer_row layout");
 
 extern "C" {
 
@@ -22,11 +18,9 @@ CTO_API int cto_offer_path_rows(double private_low, double private_high,
     if (capacity < 0 || (capacity > 0 && !rows)) capacity = 0;
     try {
         core::OfferTotals t;
-        // cto_offer_row and core::OfferRow have one layout (checked above).
         const int st = core::offer_path(private_low, private_high, offerer_factor,
-                                        responder_factor, rounds, known_value, offerer,
-                                        reinterpret_cast<core::OfferRow *>(rows), capacity,
-                                        &t, nullptr);
+                                        responder_factor, rounds, known_value, offerer, rows,
+                                        capacity, &t, nullptr);
         out->regime = t.regime;
         out->reserved = 0;
         out->rounds_used = t.rounds_used;

@@ -119,6 +119,8 @@ void to_money(double base, double sign, OfferRow *rows, OfferTotals *o) {
     o->last_cutoff = base + sign * o->last_cutoff;
 }
 
+constexpr int64_t kMaxDeadline = 10000000;  // offers; documented in the public header
+
 int validate(double lo, double hi, double ds, double db, int64_t rounds, double known,
              int offerer, Canon *p, int *bad_index) {
     Check c;
@@ -127,7 +129,9 @@ int validate(double lo, double hi, double ds, double db, int64_t rounds, double 
     if (hi < lo) c.fail(1);
     c.unit(ds, 2);
     c.unit(db, 3);
-    if (rounds < 0) c.fail(4);
+    // A deadline costs O(rounds): beyond kMaxDeadline offers (a fraction of a second) the
+    // call would hold a spreadsheet cell for minutes, so it is refused (0: no deadline).
+    if (rounds < 0 || rounds > kMaxDeadline) c.fail(4);
     c.real(known, 5);
     if (offerer != kOffererSeller && offerer != kOffererBuyer) c.fail(6);
     if (c.ok() && rounds == 0 && ds == 1.0) c.fail(2);  // no deadline needs d_s < 1

@@ -27,13 +27,14 @@ enum OfferRegime : int {
 };
 
 // One round of the path, t = 1, 2, ...  Money in the units of the inputs.
-struct OfferRow {
-    double offer;         // the price offered in round t
-    double cutoff;        // K_t: the types that have agreed by the end of round t are those
-                          // valued above K_t (seller offers) / costing below K_t (buyer offers)
-    double round_probability;       // P(agreement in round t)
-    double cumulative_probability;  // P(agreement by the end of round t)
-};
+// One round of the path: the public struct itself (counteroffer.h), so that the caller's
+// buffer is written without a copy:
+//   offer                   the price offered in round t
+//   cutoff                  K_t: the types that have agreed by the end of round t are those
+//                           valued above K_t (seller offers) / costing below K_t (buyer offers)
+//   round_probability       P(agreement in round t)
+//   cumulative_probability  P(agreement by the end of round t)
+using OfferRow = cto_offer_row;
 
 // Totals of the path; complete whatever the row capacity.
 struct OfferTotals {

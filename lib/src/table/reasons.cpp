@@ -113,10 +113,16 @@ Str no_deal_reason(const Row &r, const double *args, const double *out) {
     const double s = arg_named(r, args, "surplus", &has_s);
     Str text = "no rational deal (#N/A in Calc): ";
     text += has_s ? "the surplus " + num(s) : "the money to be split";
-    text += " does not exceed what the parties get without a deal (own " + num(out[0]);
-    if (r.info.n_outputs > 1 && std::strcmp(r.info.outputs[1].name, "other_share") == 0)
-        text += ", other " + num(out[1]);
-    return text + "); the result is own's no-deal payoff";
+    text += " does not exceed what the parties get without a deal";
+    if (r.no_deal_nan) {
+        text += " (no type of the other side gains from a deal";
+    } else {
+        text += " (own " + num(out[0]);
+        if (r.info.n_outputs > 1 && std::strcmp(r.info.outputs[1].name, "other_share") == 0)
+            text += ", other " + num(out[1]);
+    }
+    return text + (r.no_deal_nan ? "); without a deal this result has no value"
+                                 : "); the result is own's no-deal payoff");
 }
 
 // The clause of the function's status text that starts with `status` ("indeterminate
