@@ -1,6 +1,8 @@
 // addin_gen: writes the Calc add-in's generated sources from the library's catalogue
 // table (cto_function_count / cto_function_at), so a new catalogue row needs no
-// hand-written add-in code.
+// hand-written add-in code.  The functions that are not catalogue rows (DEALRANGE,
+// DEALRANGEOUTCOME, DEALSWING, DEALOFFERPATH: src/range_args.h) take their arguments'
+// text from the catalogue too; DEALREASON and DEALCALLPROBE are written out here.
 //
 //   addin_gen OUTDIR
 //

@@ -25,8 +25,14 @@ const cto_arg_info kRangeFakeArgs[] = {
     {"own_opens", "In12", "h", CTO_ARG_BOOL, 1, 1.0, 0, nullptr},
     {"basis", "In13", "h", CTO_ARG_POSITIVE, 1, 365.0, 0, nullptr},
     {"continuous", "In14", "h", CTO_ARG_BOOL, 1, 0.0, 0, nullptr}};
-const cto_function_info kRangeFake = {sizeof(cto_function_info), 1, "rates_fake", "", "s", "f",
+const cto_function_info kRangeFake = {sizeof(cto_function_info), 3, "rates_fake", "", "s", "f",
                                       "src", "st", 14, kRangeFakeArgs, 1, kOuts};
+// An earlier function where a walk-away value is required (as in DEALOUTSIDE): the range
+// functions must take the argument of that name with a default (the combined model's).
+const cto_arg_info kOutsideArgs[] = {
+    {"own_outside", "Required", "h", CTO_ARG_REAL, 0, 0.0, 0, nullptr}};
+const cto_function_info kOutsideFake = {sizeof(cto_function_info), 1, "outside_fake", "", "s",
+                                        "f", "src", "st", 1, kOutsideArgs, 1, kOuts};
 const cto_arg_info kOfferArgs[] = {
     {"private_low", "Low", "h", CTO_ARG_REAL, 0, 0.0, 0, nullptr},
     {"private_high", "High", "h", CTO_ARG_REAL, 0, 0.0, 0, nullptr},
@@ -205,7 +211,8 @@ void check_range_conversion(DealFunctions &f) {
     check(rec.in.arg[3].kind == CTO_RANGE_FIXED && rec.in.arg[3].mode == 0.0 &&
               rec.in.arg[8].mode == kAbsent && rec.in.arg[10].mode == 1.0 &&
               rec.in.arg[11].mode == 1.0 && rec.in.arg[12].mode == 365.0,
-          "left out: the catalogue default, fixed (walk-away value absent: -infinity)");
+          "left out: the catalogue default, fixed (walk-away value absent: -infinity; the "
+          "argument with a default, not an earlier function's required one)");
     check(rec.opt.n_probs == 1 && rec.opt.probs[0] == 0.5 && rec.opt.seed == 0 &&
               rec.opt.digits == 3 && rec.opt.replicates == 16,
           "options: probability 0.5, seed 0, digits 3, the library's other defaults");

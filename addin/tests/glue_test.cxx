@@ -256,11 +256,13 @@ constexpr int kArgProbOpt = cto_addin::kArgProbability - 3, kArgShapeOpt = cto_a
 } // namespace
 #include "glue_ranges.hxx"
 
-// The stand-in table: the function above, the inputs of share_range, offer_path.
+// The stand-in table: the function above, a required walk-away value, offer_path, the
+// inputs of share_range.
 extern "C" {
-size_t cto_function_count(void) { return 3; }
+size_t cto_function_count(void) { return 4; }
 const cto_function_info *cto_function_at(size_t i) {
-    return i == 0 ? &kFake : i == 1 ? &kRangeFake : i == 2 ? &kOfferFake : nullptr;
+    const cto_function_info *const t[] = {&kFake, &kOutsideFake, &kOfferFake, &kRangeFake};
+    return i < 4 ? t[i] : nullptr;
 }
 }
 
