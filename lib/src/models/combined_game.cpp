@@ -72,8 +72,12 @@ double violation(const Side &A, const Side &B, double S, const Stationary &v, bo
     const bool bindA = B.has && B.w >= rB;
     need(bindA == binds(v.ka), B.w - rB);
     if (v.ka == kAgreeFree || v.ka == kReject) {
-        const bool agree = S - v.TB >= rA;
-        need(agree == (v.ka == kAgreeFree), (S - v.TB) - rA);
+        // Where A's own option does not bind when B proposes, its value of rejecting
+        // loops back through c_A twice: agreeing beats rejecting iff S - T_B >= d0_A (for
+        // a_A < 1), a comparison not shrunk by the factor 1 - a_A^2.
+        const bool loop = !binds(v.kb) && A.a < 1.0;
+        const bool agree = loop ? at_least(S, v.TB, A.d0) : S - v.TB >= rA;
+        need(agree == (v.ka == kAgreeFree), loop ? (S - v.TB) - A.d0 : (S - v.TB) - rA);
     } else {
         const bool agree = at_least(S, B.w, A.n);
         need(agree == (v.ka == kAgreeBound), (S - B.w) - A.n);
@@ -82,8 +86,9 @@ double violation(const Side &A, const Side &B, double S, const Stationary &v, bo
     const bool bindB = A.has && A.w >= sA;
     need(bindB == binds(v.kb), A.w - sA);
     if (v.kb == kAgreeFree || v.kb == kReject) {
-        const bool agree = S - v.ZA >= sB;
-        need(agree == (v.kb == kAgreeFree), (S - v.ZA) - sB);
+        const bool loop = !binds(v.ka) && B.a < 1.0;  // as for A above
+        const bool agree = loop ? at_least(S, v.ZA, B.d0) : S - v.ZA >= sB;
+        need(agree == (v.kb == kAgreeFree), loop ? (S - v.ZA) - B.d0 : (S - v.ZA) - sB);
     } else {
         const bool agree = at_least(S, A.w, B.n);
         need(agree == (v.kb == kAgreeBound), (S - A.w) - B.n);
