@@ -3,10 +3,10 @@
 // that round, probability of agreement by that round.
 //
 // Conversion only.  The arguments are offer_path's catalogue arguments, converted as
-// every function converts them, each a single value (a larger range is Err:502).  The
-// library's table checks them first (cto_call of offer_path: counts whole, choices known,
-// domains), so the values handed to cto_offer_path_rows are valid; its status maps to the
-// error values of the rest.  At most cto_addin::kOfferPathMaxRows rows: a longer path,
+// every function converts them, each a single value (a larger range is Err:502).  A
+// rounds or offerer that is not a whole number goes to cto_offer_path_rows as -1, which
+// it rejects; on invalid input the library's table (cto_call of offer_path) names the
+// argument.  The status maps to the error values of the rest.  At most cto_addin::kOfferPathMaxRows rows: a longer path,
 // or one without a deadline, gives its first rounds.
 #ifndef CTO_ADDIN_OFFERS_HXX
 #define CTO_ADDIN_OFFERS_HXX
@@ -25,6 +25,12 @@ const cto_function_info *catalogue_function(const std::vector<const cto_function
     return nullptr;
 }
 
+// A count or choice for the C call: a whole number up to `limit` as it is; anything else
+// -1, which the library rejects (rounds < 0, offerer not 0 or 1).
+std::int64_t whole(double x, double limit) {
+    return (x >= -limit && x <= limit && x == std::floor(x)) ? static_cast<std::int64_t>(x) : -1;
+}
+
 css::uno::Any offer_path_rows(const std::vector<const cto_function_info *> &t, const Arg *args) {
     const char *calc = "DEALOFFERPATH";
     constexpr int kArgs = 7;
@@ -38,21 +44,21 @@ css::uno::Any offer_path_rows(const std::vector<const cto_function_info *> &t, c
             throw_invalid_arg(calc, j, f->args[j].label);
         in[j] = to_double(v.first(), f->args[j]);
     }
-    double totals[32];
-    int bad = -1;
-    int st = cto_call(f->id, in, totals, &bad);  // the library's checks of every argument
-    if (st == CTO_E_INVALID)
-        throw_invalid_arg(calc, bad >= 0 && bad < kArgs ? bad : -1,
-                          bad >= 0 && bad < kArgs ? f->args[bad].label : "");
-    if (st != CTO_OK) return status_result(calc, st);
     std::vector<cto_offer_row> rows(static_cast<size_t>(cto_addin::kOfferPathMaxRows));
     cto_offer_outcome o;
     std::memset(&o, 0, sizeof o);
     o.size = sizeof o;
-    st = cto_offer_path_rows(in[0], in[1], in[2], in[3], static_cast<std::int64_t>(in[4]), in[5],
-                             static_cast<int>(in[6]), rows.data(), cto_addin::kOfferPathMaxRows,
-                             &o);
-    if (st == CTO_E_INVALID) throw_invalid_arg(calc, -1, "");
+    const int st = cto_offer_path_rows(in[0], in[1], in[2], in[3], whole(in[4], 9e15), in[5],
+                                       static_cast<int>(whole(in[6], 1e6)), rows.data(),
+                                       cto_addin::kOfferPathMaxRows, &o);
+    if (st == CTO_E_INVALID) {
+        // the library's table names the argument (cto_call of offer_path checks each)
+        double totals[32];
+        int bad = -1;
+        cto_call(f->id, in, totals, &bad);
+        const bool named = bad >= 0 && bad < kArgs;
+        throw_invalid_arg(calc, named ? bad : -1, named ? f->args[bad].label : "");
+    }
     if (st != CTO_OK) return status_result(calc, st);
     const std::int64_t n = o.rows_written < 0 ? 0
                            : o.rows_written > cto_addin::kOfferPathMaxRows

@@ -128,6 +128,7 @@ int cto_offer_path_rows(double lo, double hi, double df, double dr, int64_t roun
     rec.offer_rounds = rounds;
     rec.offer_capacity = cap;
     rec.offer_offerer = offerer;
+    if (!(lo <= hi) || rounds < 0 || (offerer != 0 && offerer != 1)) return CTO_E_INVALID;
     out->rows_written = std::min(cap, rec.path_rounds);
     for (int64_t t = 0; t < out->rows_written; ++t)
         rows[t] = {10.0 + static_cast<double>(t), 5.0 + static_cast<double>(t), 0.001,
@@ -364,7 +365,13 @@ void check_offer_path(DealFunctions &f) {
               rec.offer_offerer == 1 && rec.offer_args[5] == 0.25,
           "DEALOFFERPATH: rounds, known value, offerer as text; a row per round");
     rec.path_rounds = 5000;
-    check(path(f, {num(2.5)}).kind == Outcome::Illegal, "rounds not whole: Err:502 (the table's check)");
+    const Result bad_rounds = path(f, {num(2.5)});
+    check(bad_rounds.kind == Outcome::Illegal && bad_rounds.position == 4 && rec.offer_rounds == -1,
+          "rounds not whole: -1 to the library, Err:502 naming rounds (the table's check)");
+    const Result bad_offerer = path(f, {num(2.0), num(0.0), num(4294967297.0)});
+    check(bad_offerer.kind == Outcome::Illegal && bad_offerer.position == 6 &&
+              rec.offer_offerer == -1,
+          "an offerer beyond int: -1 to the library (never wrapped to 1), Err:502");
     check(path(f, {}, cells(1, 2, {num(0.0), num(1.0)})).kind == Outcome::Illegal,
           "a range for a single value: Err:502");
     check(path(f, {}, one(text("x"))).kind == Outcome::Illegal, "text: Err:502");

@@ -38,7 +38,8 @@ int cto_call(int id, const double *a, double *o, int *bad) {
     if (bad) *bad = -1;
     if (id == 2) { // offer_path: the table's checks (a number each; rounds whole)
         for (int j = 0; j < 7; ++j)
-            if (std::isnan(a[j]) || (j == 4 && a[j] != std::floor(a[j]))) {
+            if (std::isnan(a[j]) || (j == 4 && a[j] != std::floor(a[j])) ||
+                (j == 6 && a[j] != 0.0 && a[j] != 1.0)) {
                 if (bad) *bad = j;
                 return CTO_E_INVALID;
             }
