@@ -27,7 +27,7 @@ C_TYPES = {"bool": "int", "count": "int64_t", "choice": "int"}
 _FUNCTION_KEYS = {"id", "name", "calc_name", "summary", "formula", "source", "statuses",
                   "args", "arg", "output", "example", "model", "adapter", "block_kernel",
                   "outcome", "reference", "no_deal_nan"}
-_ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip"}
+_ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip", "rule"}
 
 
 class DefinitionError(ValueError):
@@ -46,6 +46,7 @@ class Arg:
     choices: Tuple[str, ...]
     plausible: Optional[Tuple[float, float]]
     slip: str  # what a value outside the plausible range suggests
+    rule: str  # a rule joining it to other arguments, for the reason when it breaks it
     absent: bool  # the default means "absent" (an optional value: -inf; a count: 0)
 
     @property
@@ -150,7 +151,7 @@ def _arg(name: str, d: Dict[str, Any], path: pathlib.Path) -> Arg:
     return Arg(name=d.get("name", name), label=_str(d, "label", path),
                help=_str(d, "help", path), kind=kind, has_default=has_default,
                default=default, min_count=int(d.get("min", 0)), choices=choices,
-               plausible=plausible, slip=d.get("slip", ""), absent=d.get("default") == "absent")
+               plausible=plausible, slip=d.get("slip", ""), rule=d.get("rule", ""), absent=d.get("default") == "absent")
 
 
 def load_shared_args(directory: pathlib.Path = FUNCTIONS_DIR) -> Dict[str, Arg]:

@@ -106,6 +106,9 @@ def rows(functions: List[Function]) -> str:
         out.append(f"constexpr const char *kSlip_{f.name}[] = {{")
         out += [f"    {c_string(a.slip)}," for a in f.args]
         out.append("};")
+        out.append(f"constexpr const char *kRule_{f.name}[] = {{")
+        out += [f"    {c_string(a.rule)}," for a in f.args]
+        out.append("};")
         out.append(f"constexpr bool kNoDealNan_{f.name} = {'true' if f.no_deal_nan else 'false'};")
         out.append(f"const cto_output_info kOutputs_{f.name}[] = {{")
         out += [f"    {{{c_string(o.name)}, {c_string(o.help)}}}," for o in f.outputs]

@@ -66,7 +66,12 @@ TEST_CASE("explain: invalid arguments of every kind name the argument and the ru
     // A value fine by its kind that breaks a rule joining it to another argument.
     const Reason r = explain("screening_profit", {1, 2, 0.5, 0.9, 0.9});
     CHECK(r.status == CTO_E_INVALID);
-    CHECK(r.text.rfind("low_value = 2 does not fit the other arguments", 0) == 0);
+    CHECK(r.text == "low_value = 2 does not fit: it must be at most high_value");
+    // An observed share no own factor can produce (as opener own gets at least
+    // 1 - other_factor: Rubinstein 1982 with own's factor from 0 to 1).
+    const Reason u = explain("implied_factor", {0.02, 0.95, 1});
+    CHECK(u.status == CTO_E_INVALID);
+    CHECK(u.text.rfind("observed_share = 0.02 does not fit: no own factor from 0 to 1", 0) == 0);
 }
 
 TEST_CASE("explain: no deal, indeterminate, unknown function, a short buffer", "[explain]") {

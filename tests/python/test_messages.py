@@ -40,10 +40,11 @@ def test_implied_factor_says_no_factor_produces_the_share():
     # factor produces it with these other arguments
     with pytest.raises(co.InvalidArgumentError,
                        match=r"^implied_factor: observed_share = 0\.01 is invalid \(does not "
-                             r"fit the other arguments"):
+                             r"fit: no own factor from 0 to 1 .* as opener own gets at least "
+                             r"1 - other_factor"):
         co.implied_factor(0.01, 0.95)
     with pytest.raises(co.InvalidArgumentError, match=r"observed_share = 0\.01 is invalid "
-                                                      r"\(does not fit the other arguments"):
+                                                      r"\(does not fit: no own factor from 0 to 1"):
         co.implied_factor([0.5, 0.01], 0.95)  # the same reason for an array element
     assert co.implied_factor(0.06, 0.95) >= 0.0  # just above the bound: reachable
     # outside 0 to 1 the argument's own domain is the reason

@@ -1,7 +1,8 @@
 """The package's view of the library's table: constants named from the public header,
 one spec per table row, one worked example per function keyed by the table's names.
 
-Source: lib/include/counteroffer/counteroffer.h (the #define lines, read here)."""
+Source: lib/include/counteroffer/counteroffer.h and its parts (the #define lines, read
+here)."""
 
 import re
 
@@ -11,7 +12,7 @@ from counteroffer import _core
 from counteroffer._examples import EXAMPLES
 from counteroffer._spec import Kind, Status
 
-HEADER = (ROOT / "lib/include/counteroffer/counteroffer.h").read_text()
+HEADER = "\n".join(p.read_text() for p in sorted((ROOT / "lib/include/counteroffer").glob("*.h")))
 
 
 def define(name):

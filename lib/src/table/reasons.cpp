@@ -95,6 +95,7 @@ Str invalid_reason(const Row &r, const double *args, int bad) {
     if (!what.empty()) return std::isnan(v) ? Str(a.name) + " " + what : head + what;
     // Fine by its kind: a rule that joins it to other arguments, or a result too large
     // for double arithmetic (blamed on the money amount).
+    if (r.rule[bad][0] != '\0') return head + "does not fit: " + r.rule[bad];
     return head + "does not fit the other arguments or the model's range (" + a.help + ")";
 }
 

@@ -36,7 +36,7 @@ namespace {
     Row{{sizeof(cto_function_info), id, #name, calc, summary, formula, source, statuses,      \
          CTO_N_OF(kArgs_##name), kArgs_##name, CTO_N_OF(kOutputs_##name), kOutputs_##name}, \
         t_##name,                                                                            \
-        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>, kPlausible_##name, kSlip_##name, kWords_##name, kNoDealNan_##name},
+        strided<t_##name, CTO_N_OF(kArgs_##name), CTO_N_OF(kOutputs_##name)>, kPlausible_##name, kSlip_##name, kRule_##name, kWords_##name, kNoDealNan_##name},
 
 const Row kRows[] = {CTO_CATALOGUE_ROWS};
 constexpr size_t kCount = sizeof(kRows) / sizeof(kRows[0]);

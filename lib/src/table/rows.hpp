@@ -16,6 +16,7 @@ struct Row {
     Loop loop;
     const double (*plausible)[3];  // per argument: (has a range, low, high)
     const char *const *slip;       // per argument: what a value outside it suggests
+    const char *const *rule;       // per argument: its rule joining other arguments, or ""
     const char *const *const *words;  // per output: words for its codes, or nullptr
     bool no_deal_nan;              // the result is NaN, not a payoff, without a deal
 };
