@@ -16,7 +16,7 @@ PLOT_PROBABILITIES: Tuple[float, ...] = tuple(round(0.02 + 0.04 * k, 2) for k in
 def _pyplot() -> Any:
     try:
         import matplotlib.pyplot as plt
-    except ImportError:  # pragma: no cover - depends on the environment
+    except ImportError:
         raise ImportError("counteroffer's plot helpers need matplotlib: pip install "
                           "'counteroffer[plot]' (or pip install matplotlib)") from None
     return plt
@@ -38,8 +38,9 @@ def plot_share_range(result: Any, marks: Sequence[float] = (0.1, 0.5, 0.9), ax: 
     for k in range(len(probs) - 1):
         width = values[k + 1] - values[k]
         if width > 0:
-            ax.bar(values[k], (probs[k + 1] - probs[k]) / width, width=width, align="edge",
-                   color="0.75", edgecolor="0.45", label="_bar")
+            bars = ax.bar(values[k], (probs[k + 1] - probs[k]) / width, width=width,
+                          align="edge", color="0.75", edgecolor="0.45")
+            bars[0].set_gid("share_range_bar")
     for p in marks:
         if p not in probs:
             raise ValueError(f"plot_share_range: probability {p!r} is not in the result "
@@ -88,7 +89,7 @@ def plot_offer_path(path: Any, ax: Any = None, title: Optional[str] = None) -> T
     ax.set_xlabel("round" if path.days is None else "day of the offer")
     ax.set_ylabel("offer (money)")
     right = ax.twinx()
-    right.step(x, path.cumulative_probability, where="post", color="C1",
+    right.plot(x, path.cumulative_probability, marker="s", color="C1",
                label="probability of agreement by then")
     right.set_ylim(0, 1)
     right.set_ylabel("probability of agreement")
