@@ -15,7 +15,8 @@ the conclusion line.
 from layout import Sheet
 
 MAX_ROUNDS = 12
-FIRST = 43                   # the deadline table's first row (one offer)
+PATH = 43                    # the round table's first row (round 1)
+FIRST = PATH + MAX_ROUNDS + 4  # the deadline table's first row (one offer)
 LAST = FIRST + MAX_ROUNDS - 1
 NONE_ROW = LAST + 1          # the same licence with no deadline
 
@@ -141,9 +142,9 @@ def two_sided(s):
 
 
 def deadline_table(s):
-    s.heading(41, "The deadline effect: the same licence with 1 to %d offers before the "
+    s.heading(FIRST - 2, "The deadline effect: the same licence with 1 to %d offers before the "
               "deadline, and with none" % MAX_ROUNDS)
-    s.column_heads(42, ["Offers before the deadline", "Our opening offer (EUR m)",
+    s.column_heads(FIRST - 1, ["Offers before the deadline", "Our opening offer (EUR m)",
                         "Chance signed by the deadline", "Expected round, if signed",
                         "Expected delay, if signed (days)",
                         "Opening offer against one offer fewer", "Same as no deadline"])
@@ -182,6 +183,45 @@ def deadline_table(s):
     s.row_height(NONE_ROW + 1, 1000)
 
 
+def offer_path(s):
+    """Round by round with the deadline above (DEALOFFERPATH, a row per round; rows past
+    the last round with a chance of agreement are left empty)."""
+    s.heading(PATH - 2, "Round by round with the deadline above: our offers and the chance "
+              "the licence is signed")
+    s.column_heads(PATH - 1, ["Round (1: our first offer; rows end when talks end)", "Our offer (EUR m)",
+                              "Cutoff: values above it have signed (EUR m)", "Chance signed in this round",
+                              "Chance signed by the end of this round"])
+    s.fit_heads(PATH - 1, "A", 5)
+    call = "DEALOFFERPATH(%s)" % offers("$B$14")
+    for k in range(1, MAX_ROUNDS + 1):  # a cell per value: the path has as many rows as
+        r = PATH + k - 1                # rounds with a chance of agreement
+        s.put("A%d" % r, '=IF(%d>ROWS(%s);"";%d)' % (k, call, k), "CtoWhole")
+        for j, (col, style) in enumerate(zip("BCDE", ("CtoMoney", "CtoMoney", "CtoPercent",
+                                                      "CtoPercent")), 2):
+            s.put("%s%d" % (col, r), '=IF($A%d="";"";INDEX(%s;$A%d;%d))' % (r, call, r, j),
+                  style)
+    s.name("report_rows", "A%d:E%d" % (PATH, PATH + MAX_ROUNDS - 1))
+    end = PATH + MAX_ROUNDS
+    s.merged("A%d:H%d" % (end, end), '="Reading the table: we lower our offer round by round '
+             'and each time the licensees who value the licence most sign; the chances '
+             'signed in each round add up to "&TEXT(B22;"0.0%")&", the chance by the '
+             'deadline; empty rows mean the talks have ended (everyone who will sign has '
+             'signed) before the deadline."', "CtoReading", fit=False)
+    s.row_height(end, 1000)
+
+
+def offer_charts(s, top):
+    last = PATH + MAX_ROUNDS - 1
+    s.chart("path", ["A%d:B%d" % (PATH - 1, last)], "A%d" % top, (13.2, 8.6),
+            "XYDiagram", "Our offer round by round", "Round", "EUR m",
+            headers=(True, False))
+    ch = s.chart("signed", ["A%d:A%d" % (PATH - 1, last), "D%d:E%d" % (PATH - 1, last)],
+                 "D%d" % top, (13.2, 8.6), "XYDiagram", "Chance the licence is signed, by "
+                 "round", "Round", "Probability", headers=(True, False))
+    ch.Diagram.YAxis.AutoMax = False
+    ch.Diagram.YAxis.Max = 1.0  # a probability: the axis ends at certainty
+
+
 def details(s):
     s.heading(38, "Details: per-round factors, times the chance talks survive a "
               "rejection", "D")
@@ -203,6 +243,7 @@ def licence_private(office, path):
     inputs(s)
     results(s)
     two_sided(s)
+    offer_path(s)
     deadline_table(s)
     details(s)
     s.conclusion(
@@ -216,14 +257,18 @@ def licence_private(office, path):
                    ("in_rounds", "B14"), ("in_value_low", "B7"), ("in_value_high", "B8"),
                    ("in_reservation", "B9")):
         s.name(nm, a1)
-    s.break_before(41)
+    s.break_before(PATH - 2)
+    s.break_before(NONE_ROW + 3)
     end = s.notes(NONE_ROW + 3, NOTES, caution=CAUTION)
     top = end + 1
     s.break_before(top)
-    s.chart("opening", ["A42:B%d" % LAST], "A%d" % top, (13.2, 11.0), "XYDiagram",
+    offer_charts(s, top)
+    s.chart("opening", ["A%d:B%d" % (FIRST - 1, LAST)], "A%d" % (top + 20), (13.2, 8.6),
+            "XYDiagram",
             "Our opening offer against the deadline", "Offers before the deadline",
             "EUR m", headers=(True, False))
-    ch = s.chart("chance", ["A42:A%d" % LAST, "C42:C%d" % LAST], "D%d" % top, (13.2, 11.0),
+    ch = s.chart("chance", ["A%d:A%d" % (FIRST - 1, LAST), "C%d:C%d" % (FIRST - 1, LAST)],
+                 "D%d" % (top + 20), (13.2, 8.6),
             "XYDiagram", "Chance of a licence by the deadline",
             "Offers before the deadline", "Probability", headers=(True, False))
     ch.Diagram.YAxis.AutoMax = False

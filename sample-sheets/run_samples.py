@@ -68,7 +68,7 @@ def count_cells(doc):
         for r in range(nrow):
             for c in range(ncol):
                 f = sheet.getCellByPosition(c, r).getFormula()
-                if f.startswith("="):
+                if f.startswith(("=", "{=")):  # a cell of a matrix formula reads {=...}
                     formulas += 1
                     addin += SERVICE in f.upper()
     return formulas, addin

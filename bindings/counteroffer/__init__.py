@@ -56,6 +56,8 @@ from ._errors import (
     NoConvergenceWarning,
     NoDealError,
     NoDealWarning,
+    PrecisionNotReachedError,
+    PrecisionNotReachedWarning,
     errstate,
     geterr,
     seterr,
@@ -64,6 +66,11 @@ from ._docs import build_doc
 from ._factory import make_function
 from ._results import ArrayResult
 from ._spec import load_specs
+from ._distributions import Distribution, pert, triangular, uniform
+from ._offers import OfferPathRows, offer_path_rows
+from ._plots import PLOT_PROBABILITIES, plot_offer_path, plot_share_range, plot_swing
+from ._range_results import Estimate, RangeResult, SwingResult, SwingRow
+from ._ranges import share_range, share_swing
 
 __version__: str = _core.version()
 if __version__ != _core.HEADER_VERSION:  # the sqlite-style start-up check
@@ -74,7 +81,9 @@ if __version__ != _core.HEADER_VERSION:  # the sqlite-style start-up check
 
 for _cls in (CounterofferError, CounterofferWarning, IndeterminateError, IndeterminateWarning,
              ImplausibleInputError, ImplausibleInputWarning, InternalError, InternalWarning, InvalidArgumentError, InvalidArgumentWarning,
-             NoConvergenceError, NoConvergenceWarning, NoDealError, NoDealWarning):
+             NoConvergenceError, NoConvergenceWarning, NoDealError, NoDealWarning,
+             PrecisionNotReachedError, PrecisionNotReachedWarning, Distribution, Estimate,
+             OfferPathRows, RangeResult, SwingResult, SwingRow):
     _cls.__module__ = __name__
 
 #: The library's function table, one FunctionSpec per catalogue row, in order.
@@ -108,6 +117,25 @@ __all__: List[str] = [s.name for s in catalogue] + [
     "NoConvergenceWarning",
     "NoDealError",
     "NoDealWarning",
+    "PrecisionNotReachedError",
+    "PrecisionNotReachedWarning",
+    # ranges under uncertainty and the offer path's rows (struct entry points)
+    "share_range",
+    "share_swing",
+    "uniform",
+    "triangular",
+    "pert",
+    "Distribution",
+    "Estimate",
+    "RangeResult",
+    "SwingResult",
+    "SwingRow",
+    "offer_path_rows",
+    "OfferPathRows",
+    "plot_share_range",
+    "plot_swing",
+    "plot_offer_path",
+    "PLOT_PROBABILITIES",
     "catalogue",
     "errstate",
     "geterr",

@@ -1,7 +1,8 @@
 """Error policy of the Python package: warning and error classes, ``errstate``.
 
 The library reports a status for every element (names from ``cto_status_name``):
-``invalid``, ``no_deal``, ``indeterminate``, ``no_convergence``, ``internal``; and one
+``invalid``, ``no_deal``, ``indeterminate``, ``no_convergence``, ``internal``, ``precision`` (share_range: the
+estimates are reported, but some quantile is short of the digit target); and one
 category of the package's own, ``implausible``: a valid value outside the plausible
 range the library gives its argument (a rate typed as 8 for 8%).
 The wrappers gather the statuses of one call and apply this policy once, after the
@@ -16,7 +17,8 @@ loop.  Each category takes one action:
     return the library's output silently.
 
 Defaults: ``invalid="raise"``, ``no_deal="warn"``, ``indeterminate="warn"``,
-``no_convergence="warn"``, ``internal="raise"``, ``implausible="warn"`` (the result
+``no_convergence="warn"``, ``internal="raise"``, ``precision="warn"``,
+``implausible="warn"`` (the result
 uses the value as given; ``errstate(implausible="ignore")`` turns the check off, e.g.
 for arrays where such values are meant).  A call with scalar arguments only
 always raises :class:`InvalidArgumentError` (a ``ValueError``) for invalid input; the
@@ -37,6 +39,7 @@ __all__ = [
     "NoConvergenceError",
     "InternalError",
     "ImplausibleInputError",
+    "PrecisionNotReachedError",
     "CounterofferWarning",
     "InvalidArgumentWarning",
     "NoDealWarning",
@@ -44,6 +47,7 @@ __all__ = [
     "NoConvergenceWarning",
     "InternalWarning",
     "ImplausibleInputWarning",
+    "PrecisionNotReachedWarning",
     "errstate",
     "seterr",
     "geterr",
@@ -78,6 +82,11 @@ class ImplausibleInputError(CounterofferError, ValueError):
     """A valid value outside its plausible range (with ``errstate(implausible="raise")``)."""
 
 
+class PrecisionNotReachedError(CounterofferError, ArithmeticError):
+    """share_range: some quantile is short of the digit target at the largest sample
+    (with ``errstate(precision="raise")``)."""
+
+
 class CounterofferWarning(UserWarning):
     """Base class of the warnings the package issues for a status of the library."""
 
@@ -107,6 +116,11 @@ class ImplausibleInputWarning(CounterofferWarning):
     result uses the value as given."""
 
 
+class PrecisionNotReachedWarning(CounterofferWarning):
+    """share_range: every estimate is reported with its half-width, but some quantile of
+    own share is short of the digit target at the largest sample (status ``precision``)."""
+
+
 #: category name -> (error class, warning class); unknown future statuses use the bases
 CLASSES: Dict[str, Any] = {
     "invalid": (InvalidArgumentError, InvalidArgumentWarning),
@@ -115,6 +129,7 @@ CLASSES: Dict[str, Any] = {
     "no_convergence": (NoConvergenceError, NoConvergenceWarning),
     "internal": (InternalError, InternalWarning),
     "implausible": (ImplausibleInputError, ImplausibleInputWarning),
+    "precision": (PrecisionNotReachedError, PrecisionNotReachedWarning),
 }
 
 _ACTIONS = ("raise", "warn", "ignore")
@@ -125,6 +140,7 @@ _DEFAULTS: Dict[str, str] = {
     "no_convergence": "warn",
     "internal": "raise",
     "implausible": "warn",
+    "precision": "warn",
 }
 _policy: contextvars.ContextVar[Dict[str, str]] = contextvars.ContextVar(
     "counteroffer_errstate", default=_DEFAULTS
@@ -175,6 +191,7 @@ def seterr(
     no_convergence: str | None = None,
     internal: str | None = None,
     implausible: str | None = None,
+    precision: str | None = None,
 ) -> Dict[str, str]:
     """Set the policy for the current context; returns the previous one."""
     old = geterr()
@@ -183,7 +200,7 @@ def seterr(
             old,
             {"all": all, "invalid": invalid, "no_deal": no_deal, "indeterminate": indeterminate,
              "no_convergence": no_convergence, "internal": internal,
-             "implausible": implausible},
+             "implausible": implausible, "precision": precision},
         )
     )
     return old
@@ -199,6 +216,7 @@ def errstate(
     no_convergence: str | None = None,
     internal: str | None = None,
     implausible: str | None = None,
+    precision: str | None = None,
 ) -> Iterator[Dict[str, str]]:
     """Context manager: the error policy inside the ``with`` block.
 
@@ -212,7 +230,8 @@ def errstate(
     new = _checked(
         _policy.get(),
         {"all": all, "invalid": invalid, "no_deal": no_deal, "indeterminate": indeterminate,
-         "no_convergence": no_convergence, "internal": internal, "implausible": implausible},
+         "no_convergence": no_convergence, "internal": internal, "implausible": implausible,
+         "precision": precision},
     )
     token = _policy.set(new)
     try:

@@ -75,6 +75,12 @@ def expected_conclusion(name, v, s):
                 "EUR m of gains." % ("{:,.2f}".format(v("B21")), v("B14"), 100 * v("B22"),
                                      "{:,.0f}".format(v("B24")), "{:,.2f}".format(v("B35")),
                                      "{:,.2f}".format(v("B33"))))
+    if name == "uncertain_counterparty.fods":
+        return ("Most likely we get %s of %s EUR m; over the ranges 8 in 10 cases give us "
+                "%s to %s EUR m, a deal is rational with a %.0f%% chance, and %s moves our "
+                "share most." % ("{:,.2f}".format(v("B19")), "{:,.2f}".format(v("B7")),
+                                 "{:,.2f}".format(v("B21")), "{:,.2f}".format(v("B23")),
+                                 100 * v("B24"), s("A30").lower()))
     worth = v("B23")
     deadline = ("costs us %s" % "{:,.2f}".format(-worth) if worth < 0 else
                 "is worth %s to us" % "{:,.2f}".format(worth))

@@ -23,7 +23,7 @@ from conftest import ROOT
 from test_samples import Cells, close
 
 NAME = "licence_unknown_value.fods"
-FIRST, LAST, NONE_ROW = 43, 54, 55
+PATH, FIRST, LAST, NONE_ROW = 43, 59, 70, 71
 REFERENCE = os.path.join(ROOT, "tests", "reference", "private", "offer_path.csv")
 
 
@@ -67,9 +67,43 @@ def check_against_package(c):
         assert close(c.v(cell), x, absolute=1e-12), (cell, c.v(cell), x)
 
 
+def check_round_table(c):
+    """The round table (DEALOFFERPATH) against the package's totals for the same inputs
+    and the identities of the skimming path (Fudenberg & Tirole 1991 ch. 10): the first
+    offer is the opening offer; the chances per round add up to the chance by the
+    deadline and accumulate to the last column; a licensee with a value above the cutoff
+    has signed: chance by round t = (highest - cutoff_t)/(highest - lowest); the
+    expected round is sum t p_t / sum p_t; offers fall round by round."""
+    n = int(c.v("B14"))
+    offer, chance, rnd = package_row(c, n)
+    lo, hi = c.v("B7"), c.v("B8")
+    rows = []
+    for k in range(1, 13):
+        r = PATH + k - 1
+        if c.s("A%d" % r) == "":
+            assert all(c.s("%s%d" % (col, r)) == "" for col in "BCDE")
+            continue
+        rows.append([c.v("%s%d" % (col, r)) for col in "ABCDE"])
+    assert 1 <= len(rows) <= n
+    assert [int(t) for t, *_ in rows] == list(range(1, len(rows) + 1))
+    assert close(rows[0][1], offer)
+    assert close(sum(p for *_, p, _ in rows), chance, absolute=1e-13)
+    assert close(rows[-1][4], chance, absolute=1e-13)
+    total = 0.0
+    for t, o, cut, p, by in rows:
+        total += p
+        assert close(by, total, absolute=1e-13)
+        assert close(by, (hi - cut) / (hi - lo), absolute=1e-12)
+    assert close(sum(t * p for t, _, _, p, _ in rows) / chance, rnd, rel=1e-12)
+    assert all(a[1] > b[1] for a, b in zip(rows, rows[1:]))
+    return rows
+
+
 def test_equals_python_package(book):
     """The scenario as shipped: every result and every deadline row equal the package."""
-    check_against_package(Cells(book(NAME)))
+    c = Cells(book(NAME))
+    check_against_package(c)
+    assert len(check_round_table(c)) == 8  # the scenario: a slow descent to the deadline
 
 
 def test_deadline_effect_is_not_monotone_in_the_scenario(book):
@@ -121,6 +155,13 @@ def test_reference_rows_of_the_gap_example(book):
         assert close(c.v("D%d" % row), float(ref["expected_round"]), rel=1e-13), n
     assert close(c.v("B%d" % FIRST), max(0.2, (1.2 + 0) / 2))
     check_against_package(c)
+    for ref in rows:  # the round table: second offer and first two cutoffs
+        if int(ref["rounds"]) in (2, 5):
+            c.set("B14", int(ref["rounds"]))
+            assert close(c.v("B%d" % (PATH + 1)), float(ref["offer_2"]), rel=1e-13)
+            assert close(c.v("C%d" % PATH), float(ref["cutoff_1"]), rel=1e-13)
+            assert close(c.v("C%d" % (PATH + 1)), float(ref["cutoff_2"]), rel=1e-13)
+            check_round_table(c)
 
 
 def test_two_sided_closed_forms(book):
@@ -165,3 +206,21 @@ def test_deadline_input_edit(book, rounds):
     r = FIRST + rounds - 1
     assert c.v("B21") == c.v("B%d" % r) and c.v("B22") == c.v("C%d" % r)
     check_against_package(c)
+    check_round_table(c)
+
+
+def test_round_table_as_long_as_the_path(book):
+    """The report shows the round table as long as the path (8 rounds in the scenario,
+    of 12 rows), and the round charts draw only those rows (run_samples.trim_report_rows,
+    the main job's step)."""
+    import run_samples
+    doc = book(NAME)
+    sh = doc.Sheets.getByIndex(0)
+    assert run_samples.trim_report_rows(doc) == 4
+    for k in range(1, 13):
+        assert sh.Rows.getByIndex(PATH + k - 2).IsVisible == (k <= 8), k
+    round_charts = [list(ch.getRanges()) for ch in sh.Charts
+                    if min(r.StartRow for r in ch.getRanges()) == PATH - 2]
+    assert len(round_charts) == 2
+    for ranges in round_charts:
+        assert max(r.EndRow for r in ranges) == PATH + 6

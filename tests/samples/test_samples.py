@@ -134,6 +134,8 @@ SOURCES = {
     "licence_unknown_value.fods": ["Sobel & Takahashi (1983)", "Fudenberg, Levine & Tirole "
                                    "(1985)", "Chatterjee & Samuelson (1983)",
                                    "Myerson & Satterthwaite (1983)"],
+    "uncertain_counterparty.fods": ["Rubinstein (1982)", "Shaked & Sutton (1984)",
+                                    "Clemen & Reilly 2014", "Hyndman & Fan (1996)"],
 }
 
 CHART_TITLES = {
@@ -145,6 +147,8 @@ CHART_TITLES = {
                               "Value lost against rounds of delay"],
     "licence_unknown_value.fods": ["Our opening offer against the deadline",
                                    "Chance of a licence by the deadline"],
+    "uncertain_counterparty.fods": ["Our share by percentile",
+                                    "One input at a time: our share at each input's"],
 }
 
 
