@@ -78,7 +78,9 @@ def _parser(specs: Sequence[FunctionSpec]) -> argparse.ArgumentParser:
         description="Evaluate one counteroffer catalogue function over a CSV of deals "
         "(one row per deal, columns named like the function's arguments). Results are "
         "model estimates, not financial, legal or tax advice.",
-        epilog="functions and their columns (? = optional):\n" + _function_list(specs),
+        epilog="functions and their columns (? = optional):\n" + _function_list(specs) +
+        "\n  share_range            ranges per row: X, or X_low/X_high, or "
+        "X_low/X_mode/X_high\n                         (counteroffer -f share_range --help)",
         formatter_class=argparse.RawDescriptionHelpFormatter,
     )
     parser.add_argument("input", nargs="?", default="-", help="input CSV file (default: stdin)")
@@ -195,6 +197,10 @@ def run(argv: Optional[Sequence[str]] = None, stdin: Optional[IO[str]] = None,
     stdin = stdin or sys.stdin
     stdout = stdout or sys.stdout
     stderr = stderr or sys.stderr
+    from ._cli_ranges import run as run_ranges, wants_ranges
+
+    if wants_ranges(sys.argv[1:] if argv is None else argv):  # ranges: a row per deal
+        return run_ranges(sys.argv[1:] if argv is None else argv, stdin, stdout, stderr)
     specs = load_specs()
     try:
         ns = _parser(specs).parse_args(argv)
