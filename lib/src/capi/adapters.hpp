@@ -4,12 +4,21 @@
 #ifndef CTO_CAPI_ADAPTERS_HPP
 #define CTO_CAPI_ADAPTERS_HPP
 
+#include <cstddef>
+
 #include "../models.hpp"
 #include "../table/convert.hpp"
 
 namespace cto::entry {
 
-// The solve outcome in the public struct (fields past out->size are not written).
+// The size of cto_solve_outcome in version 1.0, before fields were appended: a caller
+// built against 1.0 passes it, and gets the fields it knows.
+constexpr size_t kSolveOutcome10 = offsetof(cto_solve_outcome, delayed);
+
+// Whether the caller's struct holds field F (it was appended after 1.0).
+#define CTO_HOLDS(out, F) ((out)->size >= offsetof(cto_solve_outcome, F) + sizeof((out)->F))
+
+// The solve outcome in the public struct; fields past out->size are not written.
 inline void publish(const core::SolveOut &so, cto_solve_outcome *out) {
     out->own_share = so.own_share;
     out->other_share = so.other_share;
@@ -18,7 +27,12 @@ inline void publish(const core::SolveOut &so, cto_solve_outcome *out) {
     out->binding = so.binding;
     out->boundary = so.boundary ? 1 : 0;
     out->deal_rational = so.rational ? 1 : 0;
+    if (CTO_HOLDS(out, delayed)) out->delayed = so.delayed ? 1 : 0;
+    if (CTO_HOLDS(out, own_delay_loss)) out->own_delay_loss = so.own_delay_loss;
+    if (CTO_HOLDS(out, other_delay_loss)) out->other_delay_loss = so.other_delay_loss;
+    if (CTO_HOLDS(out, opening_advantage)) out->opening_advantage = so.opening_advantage;
 }
+#undef CTO_HOLDS
 
 // The table's doubles from the public struct: own_share, other_share, binding (NaN where
 // the status gives no answer: invalid, indeterminate, no convergence, internal) and

@@ -1,4 +1,4 @@
-// cto_solve: the combined model through its structs.
+// cto_solve and cto_solve_rates: the combined model through its structs.
 #include "adapters.hpp"
 
 namespace core = cto::core;
@@ -17,6 +17,7 @@ double option(int present, double value) {
 core::SolveOut failed() {
     core::SolveOut o{};
     o.own_share = o.other_share = o.own_no_deal = o.other_no_deal = core::kNaN;
+    o.own_delay_loss = o.other_delay_loss = o.opening_advantage = core::kNaN;
     o.binding = CTO_BINDS_NONE;
     o.boundary = false;
     o.rational = false;
@@ -28,7 +29,7 @@ core::SolveOut failed() {
 extern "C" {
 
 CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out) {
-    if (!out || out->size < sizeof(cto_solve_outcome)) return CTO_E_INVALID;
+    if (!out || out->size < cto::entry::kSolveOutcome10) return CTO_E_INVALID;
     core::SolveOut so;
     if (!in || in->size < sizeof(cto_solve_input)) {
         cto::entry::publish(failed(), out);
@@ -42,6 +43,31 @@ CTO_API int cto_solve(const cto_solve_input *in, cto_solve_outcome *out) {
                                option(in->has_other_outside, in->other_outside),
                                in->surplus,         in->own_opens != 0};
         const int st = core::solve(si, &so, nullptr);
+        cto::entry::publish(so, out);
+        return st;
+    } catch (...) {
+        cto::entry::publish(failed(), out);
+        return CTO_E_INTERNAL;
+    }
+}
+
+CTO_API int cto_solve_rates(const cto_solve_rates_input *in, cto_solve_outcome *out) {
+    if (!out || out->size < cto::entry::kSolveOutcome10) return CTO_E_INVALID;
+    core::SolveOut so;
+    if (!in || in->size < sizeof(cto_solve_rates_input)) {
+        cto::entry::publish(failed(), out);
+        return CTO_E_INVALID;
+    }
+    try {
+        const core::SolveRatesIn si{in->own_rate,      in->other_rate,
+                                    in->days,          in->breakdown_prob,
+                                    in->own_fallback,  in->other_fallback,
+                                    in->own_inside,    in->other_inside,
+                                    option(in->has_own_outside, in->own_outside),
+                                    option(in->has_other_outside, in->other_outside),
+                                    in->surplus,       in->own_opens != 0,
+                                    in->basis,         in->continuous != 0};
+        const int st = core::solve_rates(si, &so, nullptr);
         cto::entry::publish(so, out);
         return st;
     } catch (...) {
