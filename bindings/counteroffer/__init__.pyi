@@ -294,6 +294,10 @@ class SolveResult:
     other_share: float
     binding: Optional[Literal['none', 'ours', 'theirs', 'both']]
     rational: bool
+    own_delay_loss: float
+    other_delay_loss: float
+    opening_advantage: float
+    delayed: bool
 
 @overload
 def solve(

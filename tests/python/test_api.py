@@ -121,7 +121,7 @@ def test_out_argument_is_written_and_returned():
     assert res is out
     np.testing.assert_allclose(out, [rubinstein(d, 0.5) for d in np.linspace(0.1, 0.9, 4)],
                                rtol=1e-15)
-    outs = (np.empty(2), np.empty(2), np.empty(2), np.empty(2))
+    outs = tuple(np.empty(2) for _ in co.solve.spec.outputs)
     r = co.solve([0.9, 0.8], 0.9, out=outs)
     assert r["own_share"] is outs[0]
     np.testing.assert_allclose(outs[0] + outs[1], 1.0, rtol=1e-15)
@@ -138,7 +138,8 @@ def test_pandas_series_in_gives_series_out_with_index():
                                rtol=1e-15)
     df = co.solve(s, 0.9)
     assert isinstance(df, pd.DataFrame) and list(df.columns) == [
-        "own_share", "other_share", "binding", "rational"]
+        "own_share", "other_share", "binding", "rational", "own_delay_loss",
+        "other_delay_loss", "opening_advantage", "delayed"]
     with pytest.raises(ValueError, match="share one index"):
         co.share(s, pd.Series([0.9, 0.9, 0.9]))
 
@@ -239,7 +240,8 @@ def test_solve_scalar_result_object_and_array_mapping():
         r.own_share = 1.0  # frozen
     arr = co.solve([0.9, 0.9], 0.9, other_outside=[0.5, 0.3])
     assert isinstance(arr, co.ArrayResult)
-    assert set(arr) == {"own_share", "other_share", "binding", "rational"}
+    assert set(arr) == {"own_share", "other_share", "binding", "rational", "own_delay_loss",
+                        "other_delay_loss", "opening_advantage", "delayed"}
     np.testing.assert_allclose(arr["own_share"], [0.5, 1 / 1.9], rtol=1e-15)  # rows 42, 40
     # the same words as the scalar result (issue 14 point 3)
     assert arr.binding.tolist() == ["theirs", "none"]

@@ -44,11 +44,15 @@ inline void to_values(int status, const cto_solve_outcome &c, double *o) {
                                                        : core::kNaN;
     o[3] = status == CTO_E_INVALID || status == CTO_E_INTERNAL ? core::kNaN
                                                                : (c.deal_rational ? 1.0 : 0.0);
+    o[4] = c.own_delay_loss;
+    o[5] = c.other_delay_loss;
+    o[6] = c.opening_advantage;
+    o[7] = status == CTO_OK || status == CTO_E_NO_DEAL ? (c.delayed ? 1.0 : 0.0) : core::kNaN;
 }
 
 inline int solve_thunk(const double *a, double *o, int *bad) {
     bool opens;
-    if (!table::to_bool(a[10], opens)) return table::reject(10, o, 4, bad);
+    if (!table::to_bool(a[10], opens)) return table::reject(10, o, 8, bad);
     const core::SolveIn in{a[0], a[1], a[2], a[3], a[4], a[5], a[6], a[7], a[8], a[9], opens};
     core::SolveOut so;
     const int st = core::solve(in, &so, bad);
