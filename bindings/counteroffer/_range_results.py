@@ -4,6 +4,7 @@ repr and ``to_frame()`` (pandas).  The numbers are the library's, as it reports 
 from __future__ import annotations
 
 import dataclasses
+import math
 from typing import Any, Dict, Tuple
 
 
@@ -18,7 +19,19 @@ class Estimate:
     digits: int
 
     def __str__(self) -> str:
-        return f"{self.value:.{max(1, min(self.digits, 15))}g} ± {self.half_width:.2g}"
+        if self.half_width == 0:  # every draw equal: the value as it is
+            return f"{self.value!r} ± 0"
+        return f"{_shown(self.value, self.digits)} ± {_shown(self.half_width, 2)}"
+
+
+def _shown(x: float, digits: int) -> str:
+    """x to `digits` significant digits (1 to 15), without an exponent for money-sized
+    numbers (1e-4 to 1e15), thousands separated."""
+    digits = max(1, min(digits, 15))
+    if x == 0 or not math.isfinite(x) or not 1e-4 <= abs(x) < 1e15:
+        return f"{x:.{digits}g}"
+    places = max(0, digits - 1 - math.floor(math.log10(abs(x))))
+    return f"{x:,.{places}f}"
 
 
 def estimate(d: Dict[str, Any]) -> Estimate:

@@ -221,3 +221,16 @@ def test_signature_defaults_are_the_tables_and_the_librarys():
     assert math.isclose(co.share_range(0.08, 0.1, 30).own[0].value,
                         co.share_from_rates(0.08, 0.1, 30), rel_tol=0, abs_tol=1e-13)
     assert np.all(np.isfinite([e.value for e in co.share_range(0.08, 0.1, 30).own]))
+
+
+def test_docstring_examples_of_the_struct_functions():
+    import doctest
+
+    finder, runner = doctest.DocTestFinder(), doctest.DocTestRunner(
+        optionflags=doctest.ELLIPSIS | doctest.NORMALIZE_WHITESPACE)
+    n = 0
+    for fn in (co.share_range, co.offer_path_rows):
+        for test in finder.find(fn, fn.__name__, globs={}):
+            n += len(test.examples)
+            runner.run(test)
+    assert runner.summarize(verbose=False).failed == 0 and n >= 4

@@ -29,6 +29,9 @@ import mpmath as mp
 
 mp.mp.dps = 50
 HERE = os.path.dirname(os.path.abspath(__file__))
+sys.path.insert(0, os.path.join(HERE, "game_tree"))
+import game_tree as GAME_TREE  # noqa: E402  (the combined model's game, from its rules)
+mp.mp.dps = 50
 # For stress runs only: another seed and output directory (the committed tables use the
 # defaults).
 OUT = os.environ.get("CTO_REF_OUT", HERE)
@@ -202,50 +205,16 @@ def wait_value(P, p):
 
 
 def no_deal_payoffs(P, Q, p):
-    """The header's no-deal payoffs of the combined model (cto_solve): when some side's
-    walk-away value beats its value of waiting, that side walks away at its first answer
-    and each side with a walk-away value gets it (a side with none keeps its value of
-    waiting); otherwise nobody walks and each gets its value of waiting.  Checked against backward
-    induction in alternating_reference (the BI round-1 agreement must match)."""
+    """Payoffs without a deal when no discounting and no breakdown leave the induction
+    without a limit (both factors 1, p = 0; alternating_reference uses them only there):
+    a side whose walk-away value beats its value of waiting walks away, and each side
+    with a walk-away value gets it (a side with none keeps its value of waiting);
+    otherwise each gets its value of waiting."""
     dP, dQ = wait_value(P, p), wait_value(Q, p)
     walks = (P.w is not None and P.w > dP) or (Q.w is not None and Q.w > dQ)
     if not walks:
         return dP, dQ
     return (P.w if P.w is not None else dP), (Q.w if Q.w is not None else dQ)
-
-
-def bi_alternating(A, B, p, pi, T):
-    """Exact backward induction over T rounds, A proposing in odd rounds.  After round T
-    the status quo continues forever (values g).  Each responder accepts an offer worth at
-    least max(outside option, value of rejecting); each proposer either makes the cheapest
-    acceptable offer or a deliberately unacceptable one, whichever it prefers.  Returns
-    (A's and B's values in round 1, A's and B's values in round 2, deal in round 1)."""
-    vA, vB = A.g, B.g
-    hist = []
-    for k in range(T, 0, -1):
-        if k % 2 == 1:
-            X, Y, vX, vY = A, B, vA, vB
-        else:
-            X, Y, vX, vY = B, A, vB, vA
-        cY = cont_value(Y, p, vY)
-        tY = cY if Y.w is None else max(Y.w, cY)
-        optout = Y.w is not None and Y.w > cY
-        if optout:
-            rejX = X.w if X.w is not None else cont_value(X, p, vX)
-        else:
-            rejX = cont_value(X, p, vX)
-        if pi - tY >= rejX:
-            nX, nY, deal = pi - tY, tY, True
-        else:
-            nX, nY, deal = rejX, tY, False
-        if k % 2 == 1:
-            vA, vB = nX, nY
-        else:
-            vB, vA = nX, nY
-        if k <= 2:
-            hist.append((vA, vB, deal))
-    r1, r2 = hist[-1], hist[-2] if len(hist) > 1 else (None, None, None)
-    return r1[0], r1[1], r2[0], r2[1], r1[2]
 
 
 def fixed_point_alternating(A, B, p, pi, dps=90):
@@ -284,99 +253,106 @@ def fixed_point_alternating(A, B, p, pi, dps=90):
         return +x, +y
 
 
-def bi_rounds_needed(A, B, p, deal):
-    """Odd T with (alpha_A alpha_B)^((T-1)/2) <= 1e-45 (deal) or max alpha^T <= 1e-45."""
-    aA, aB = (1 - p) * A.d, (1 - p) * B.d
-    if deal:
-        q = aA * aB
-        if q == 0:
-            return 11
-        if q >= 1:
-            return None
-        n = 2 * int(mp.ceil(104 / -mp.log(q))) + 3
-    else:
-        a = max(aA, aB)
-        if a == 0:
-            return 11
-        if a >= 1:
-            return None
-        n = int(mp.ceil(104 / -mp.log(a))) + 3
-    n += (n + 1) % 2
-    return max(n, 11)
-
-
 def snap(v, scale):
     return mp.mpf(0) if abs(v) < mp.mpf(10) ** -40 * scale else v
 
 
-def alternating_reference(fn, A, B, p, pi, own_is_A, header_nd=None):
-    """Value(s) of the alternating-offers family for one draw.
-    Returns (status, own, other, binding, rational, source) or None when the draw is
-    rejected (recorded in SKIPPED).  header_nd: (nd_A, nd_B) the header's no-deal payoffs;
-    the header's rule 'no deal when surplus <= nd_A + nd_B' decides the status."""
-    ndA, ndB = header_nd
-    deal = pi > ndA + ndB
-    gap = abs(pi - ndA - ndB)
-    if gap != 0 and gap < mp.mpf(10) ** -12 * max(abs(pi), abs(ndA), abs(ndB)):
-        # within 1e-12 of the no-deal boundary: the status is decided by rounding
-        skip(fn, "within 1e-12 x surplus of the no-deal boundary", None)
+def game_tree_decision(A, B, p, pi, allow_ties=False):
+    """The decision of the game (docs/models/combined.md) by backward induction over the
+    game tree (tests/reference/game_tree/game_tree.py, written from the game's rules):
+    returns the induction's result, or None when the two parities differ or a round-0 or
+    round-1 margin is within 1e-12 of the money scale (the decision is then rounding)."""
+    gt, same, GA, GB = GAME_TREE.outcome(A.d, B.d, p, A.b, B.b, A.g, B.g, A.w, B.w, pi)
+    if not same:
         return None
+    scale = max(abs(pi), abs(GA.d0), abs(GB.d0), *(abs(P.w) for P in (A, B) if P.w is not None))
+    tol = mp.mpf(10) ** -12 * scale if not allow_ties else 0
+    for am, wm, P in (("am0", "wm0", GA), ("am1", "wm1", GB)):
+        if gt[wm] is not None and abs(gt[wm]) < tol:
+            return None
+        m = gt[am]
+        if gt[wm] is None or gt[wm] < 0:
+            # agreeing against rejecting: the margin is the share above d0 times
+            # 1 - a_P^2, so it is measured in money as margin / (1 - a_P^2); with a_P = 1
+            # the proposer is indifferent by the model (a tie of the model, not of
+            # rounding: it agrees, as the library does)
+            if P.k1 == 1:
+                continue
+            m = m / (1 - P.k1 ** 2)
+        if abs(m) < tol:
+            return None
+    return gt, GA, GB
+
+
+def alternating_reference(fn, A, B, p, pi, own_is_A, header_nd=None, allow_ties=False):
+    """Value(s) of the alternating-offers family for one draw.
+    Returns (status, own, other, binding, rational, source[, near]) or None when the draw
+    is rejected (recorded in SKIPPED).  The decision (deal at round 0, one round late,
+    or none) comes from the game-tree induction (game_tree_decision); an immediate deal's
+    values come from BI over T rounds (or the stationary root) and must agree with the
+    game tree; a late deal's and a no-deal outcome's values are the game tree's.
+    header_nd is kept for the callers and unused."""
     aA, aB = (1 - p) * A.d, (1 - p) * B.d
-    if deal and aA == 1 and aB == 1:
-        return ("indeterminate", None, None, None, 1, "both factors 1, no breakdown: every split is an SPE (REFERENCE s.12)")
-    T = bi_rounds_needed(A, B, p, deal)
-    if T is not None and T <= 6001:
-        xA1, vB1, vA2, yB2, deal1 = bi_alternating(A, B, p, pi, T)
-        method = "BI T=%d" % T
-        if bool(deal1) != bool(deal):
-            skip(fn, "BI round-1 agreement differs from the no-deal rule", (deal1, deal))
-            return None
+    if aA == 1 and aB == 1:
+        ndA, ndB = header_nd
+        deal = pi > ndA + ndB
         if deal:
-            x_fp, y_fp = fixed_point_alternating(A, B, p, pi)
-            scale = max(abs(pi), abs(ndA), abs(ndB), 1)
-            if abs(x_fp - xA1) > mp.mpf(10) ** -38 * scale or abs(y_fp - yB2) > mp.mpf(10) ** -38 * scale:
-                skip(fn, "BI differs from the stationary solution (delay?)", (xA1, x_fp, yB2, y_fp))
-                return None
-            method += ", = stationary root"
-        x, y = xA1, yB2
-        ownv, othv = (xA1, vB1) if own_is_A else (vB1, xA1)
+            return ("indeterminate", None, None, None, 1, "both factors 1, no breakdown: every split is an SPE (REFERENCE s.12)")
+        own_nd, oth_nd = (ndA, ndB) if own_is_A else (ndB, ndA)
+        return ("no_deal", own_nd, oth_nd, 0, 0, "both factors 1, no breakdown, surplus <= the values of waiting: no deal (REFERENCE s.12)")
+    dec = game_tree_decision(A, B, p, pi, allow_ties)
+    if dec is None:
+        skip(fn, "game-tree parities differ, or a decision within 1e-12 x scale of a tie", None)
+        return None
+    gt, GA, GB = dec
+    deal = gt["k0"] == "agree" or (gt["k0"] == "reject" and gt["k1"] == "agree")
+    if deal and pi <= GA.d0 + GB.d0 and all(P.w is None or P.w < G.d0 for P, G in ((A, GA), (B, GB))):
+        # the surplus does not exceed the values of waiting and nobody gains by walking
+        # away: a deal would only tie with perpetual disagreement, which counts as no
+        # deal (REFERENCE s.12: b_A + b_B >= S gives no agreement)
+        deal = False
+        gt = dict(gt, x=GA.d0, t=GB.d0)
+    delayed = deal and gt["k0"] != "agree"
+    res_scale = max(abs(pi), abs(GA.d0), abs(GB.d0))
+    gmethod = "game-tree BI (T and T+1, 50 digits)"
+    if not deal or delayed:
+        ownv, othv = (gt["x"], gt["t"]) if own_is_A else (gt["t"], gt["x"])
+        x, y = gt["x"], gt["y"]
+        method = gmethod + ("; agreement one round late" if delayed else "")
+        if delayed:
+            note(fn, "delayed")
     else:
-        if not deal:
-            skip(fn, "no-deal draw too close to factor 1 for BI", None)
-            return None
-        x, y = fixed_point_alternating(A, B, p, pi)
-        method = "root of stationary conditions (bisection, 90 digits)"
-        xA1 = x
-        vB1 = pi - x
-        ownv, othv = (x, pi - x) if own_is_A else (pi - x, x)
+        # an immediate deal: the game tree's values; where both states agree, confirmed
+        # by the root of the stationary conditions (bisection at 90 digits)
+        method = gmethod
+        if gt["k1"] == "agree":
+            x, y = fixed_point_alternating(A, B, p, pi)
+            if abs(x - gt["x"]) > mp.mpf(10) ** -30 * max(res_scale, 1) or \
+                    abs(y - gt["y"]) > mp.mpf(10) ** -30 * max(res_scale, 1):
+                skip(fn, "the game tree and the stationary root differ", (x, gt["x"]))
+                return None
+            method += ", = stationary root (bisection, 90 digits)"
+        ownv, othv = (gt["x"], gt["t"]) if own_is_A else (gt["t"], gt["x"])
     # BI over T rounds and the bisection resolve a value to 1e-45 x the money scale:
     # below 1e-40 x scale a value is 0 (e.g. the whole surplus to a patient side)
-    res_scale = max(abs(pi), abs(ndA), abs(ndB))
     ownv, othv = snap(ownv, res_scale), snap(othv, res_scale)
     if not deal:
-        own_nd, oth_nd = (ndA, ndB) if own_is_A else (ndB, ndA)
-        scale = max(abs(pi), abs(ndA), abs(ndB), 1)
-        other_differs = fn == "solve" and abs(othv - oth_nd) > mp.mpf(10) ** -38 * scale
-        if abs(ownv - own_nd) > mp.mpf(10) ** -38 * scale or other_differs:
-            skip(fn, "BI no-deal payoffs differ from the header's no-deal payoffs", (ownv, own_nd, othv, oth_nd))
-            return None
         return ("no_deal", ownv, othv, 0, 0, method)
-    # which option binds at the stationary solution (A responds to y's proposer, i.e.
-    # A's continuation is c_A(x); B's is c_B(y))
-    cA, cB = cont_value(A, p, x), cont_value(B, p, y)
-    scale = max(abs(pi), 1e-300)
-    a_binds = A.w is not None and A.w > cA
-    b_binds = B.w is not None and B.w > cB
-    near = (A.w is not None and abs(A.w - cA) < 1e-9 * scale) or (B.w is not None and abs(B.w - cB) < 1e-9 * scale)
+    # which options bind: B's where B answers (round 0), A's where A answers (round 1)
+    a_binds = gt["wm1"] is not None and gt["wm1"] >= 0
+    b_binds = gt["wm0"] is not None and gt["wm0"] >= 0
+    near = any(gt[k] is not None and abs(gt[k]) < 1e-9 * max(abs(pi), 1e-300) for k in ("wm0", "wm1"))
     own_b, oth_b = (a_binds, b_binds) if own_is_A else (b_binds, a_binds)
     binding = (3 if oth_b else 1) if own_b else (2 if oth_b else 0)
     return ("ok", ownv, othv, binding, 1, method, near)
 
 
-def family_row(fn, A_own, B_oth, p, pi, own_opens, nd_own_oth):
+def family_row(fn, A_own, B_oth, p, pi, own_opens, nd_own_oth, allow_ties=False):
+    """allow_ties: keep a draw whose decision is within 1e-12 of a tie (the published
+    threshold cases, where both sides of the tie give the same values)."""
     A, B = (A_own, B_oth) if own_opens else (B_oth, A_own)
     nd = nd_own_oth if own_opens else (nd_own_oth[1], nd_own_oth[0])
-    return alternating_reference(fn, A, B, p, pi, bool(own_opens), nd)
+    return alternating_reference(fn, A, B, p, pi, bool(own_opens), nd, allow_ties)
 
 
 SRC_RUB = "Rubinstein (1982); Muthoo (1999) ch.3"
@@ -511,6 +487,36 @@ def d0_of(d, p, b, g=0.0):
     return wait_value(Party(d, b, g), M(p))
 
 
+def tiny_share_draws(k):
+    """k draws (dO, dT, S, opens) where one side's share is below 1e-6 of the surplus
+    (issue 10: each payoff to full relative accuracy): a nearly patient side facing an
+    impatient one takes almost everything, as proposer or responder."""
+    out = []
+    for i in range(k):
+        near1 = 1.0 - logu(1e-13, 1e-7)
+        other = u(0.05, 0.95) if i % 3 else RNG.choice([0.0, 0.5, 1e-9])
+        dO, dT = (near1, other) if i % 2 else (other, near1)
+        out.append((dO, dT, rsurplus(), RNG.randrange(2)))
+    return out
+
+
+def add_tiny_rows(fn, make):
+    """Rows from tiny_share_draws; make(dO, dT, S, opens) -> (args, own Party, other
+    Party, p).  Only rows whose smaller share is below 1e-6 x |surplus| are kept."""
+    n = 0
+    for dO, dT, S, opens in tiny_share_draws(60):
+        args, PO, PT, p = make(dO, dT, S, opens)
+        res = family_row(fn, PO, PT, M(p), M(S), opens, (M(0), M(0)))
+        if res is None or res[0] != "ok":
+            continue
+        if min(abs(res[1]), abs(res[2])) >= mp.mpf(10) ** -6 * abs(M(S)):
+            continue
+        outs = [res[1], res[2], res[3], res[4]] if fn == "solve" else [res[1]]
+        add(fn, args, res[0], outs, res[5] + "; a share below 1e-6 of the surplus")
+        n += 1
+    note(fn, "tiny-share rows", n)
+
+
 def gen_breakdown_share():
     fn = "breakdown_share"
     src = "Binmore, Rubinstein & Wolinsky (1986); Muthoo (1999) ch.4; REFERENCE s.4.2 timing"
@@ -545,10 +551,12 @@ def gen_breakdown_share():
         ndO, ndT = d0_of(dO, p, bO), d0_of(dT, p, bT)
         if p == 0:
             ndO, ndT = M(0), M(0)
-        res = family_row(fn, Party(dO, bO), Party(dT, bT), M(p), M(S), op, (ndO, ndT))
+        res = family_row(fn, Party(dO, bO), Party(dT, bT), M(p), M(S), op, (ndO, ndT), allow_ties=True)
         if res is None:
             continue
         add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.4.1/s.12 case")
+    add_tiny_rows(fn, lambda dO, dT, S, op: (
+        [dO, dT, 1e-9 if op else 0.0, 0.0, 0.0, S, op], Party(dO), Party(dT), 1e-9 if op else 0.0))
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "p = 0 and both factors 1 (REFERENCE s.12)")
     for a in ([0.9, 0.9, 1.5, 0.0, 0.0, 1.0, 1], [0.9, 0.9, -0.1, 0.0, 0.0, 1.0, 1],
@@ -614,8 +622,11 @@ def gen_outside_option_share():
               [0.9, 0.9, 0.0, 0.9 / 1.9, 1.0, 1], [0.9, 0.9, 0.6, 0.5, 1.0, 1]):
         dO, dT, wO, wT, S, op = a
         res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), op,
-                         no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0))
+                         no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0), allow_ties=True)
         add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.11 case")
+    add_tiny_rows(fn, lambda dO, dT, S, op: (
+        [dO, dT, -0.1 * abs(S), -0.2 * abs(S), S, op], Party(dO, w=-0.1 * abs(S)),
+        Party(dT, w=-0.2 * abs(S)), 0.0))
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
     for a in ([0.9, 0.9, NAN, 0.2, 1.0, 1], [0.9, 0.9, 0.1, INF, 1.0, 1], [1.1, 0.9, 0.1, 0.2, 1.0, 1],
@@ -648,7 +659,10 @@ def gen_inside_option_share():
               [0.9, 1.0, 0.2, 0.1, 1.0, 1]):
         dO, dT, gO, gT, S, op = a
         res = family_row(fn, Party(dO, g=gO), Party(dT, g=gT), 0, M(S), op, (M(gO), M(gT)))
+        if res is None:
+            continue
         add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.6/s.11 case")
+    add_tiny_rows(fn, lambda dO, dT, S, op: ([dO, dT, 0.0, 0.0, S, op], Party(dO), Party(dT), 0.0))
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
     for a in ([0.9, 0.9, NAN, 0.2, 1.0, 1], [0.9, -0.9, 0.1, 0.2, 1.0, 1], [0.9, 0.9, 0.1, 0.2, -INF, 1]):
@@ -687,6 +701,15 @@ def gen_solve():
             [res[1], res[2], res[3], res[4]], res[5] + "; " + src)
         n += 1
         note(fn, res[0] + (":binding=%d" % res[3] if res[0] == "ok" else ""))
+    add_tiny_rows(fn, lambda dO, dT, S, op: (
+        [dO, dT, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, S, op], Party(dO), Party(dT), 0.0))
+    # the issue's worked case: the opener can walk away only one round on, so its deal
+    # at round 0 is rational although the walk-away values add up to more than S
+    a = [0.9999787082350563, 0.9997979186187722, 0.0, 0.0, 0.0, 0.24516090126133086,
+         0.20927423291712718, 0.8094438040631461, 0.1905599633344914, 1.0, 1]
+    res = family_row(fn, Party(a[0], 0, a[5], a[7]), Party(a[1], 0, a[6], a[8]), M(0), M(1), 1, (M(0), M(0)))
+    assert res[0] == "ok" and abs(res[1] - mp.mpf("0.80943625486006266")) < 1e-16, res
+    add(fn, a, res[0], [res[1], res[2], res[3], res[4]], res[5] + "; " + src + "; issue 10 worked case")
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.0, 0.1, 0.1, 0.1, 0.2, -INF, -INF, 1.0, op], "indeterminate",
             [NAN, NAN, NAN, 1], "p = 0 and both factors 1: every split is an SPE (REFERENCE s.12); a deal is rational")
@@ -909,6 +932,14 @@ def gen_deadline_share():
               (0.999, 0.9999, 10 ** 6, 0.9, 0.9, 100.0, 1), (1 - 1e-10, 1 - 1e-10, 10 ** 12, 0.9, 0.9, 1.0, 0),
               (1 - 1e-10, 1 - 1e-10, 10 ** 12 + 1, 0.9, 0.9, 1.0, 1), (0.5, 0.9, 10 ** 12, 2.0, 0.0, 1.0, 1)):
         row(*a)
+    # a share below 1e-6 of the surplus (issue 10): the last proposer takes (nearly) all,
+    # so the other, proposing first, keeps S (1 - d) or a little more
+    row(0.11440739460887106, 0.99999999, 2, 0.0, 0.0, 0.21397515719186358, 1, "; issue 10 case")
+    for _ in range(12):
+        T = RNG.choice([2, 3, 4, 6, 9])
+        dN = 1.0 - logu(1e-13, 1e-7)
+        dO, dT = (u(0.05, 0.95), dN) if T % 2 == 0 else (dN, u(0.05, 0.95))
+        row(dO, dT, T, 0.0, 0.0, rsurplus(), 1, "; a share below 1e-6 of the surplus")
     # REFERENCE s.11 rows 23-32 (published 15-digit values; the BI must reproduce them)
     published = [((0.9, 0.9, 1, 0.0, 0.0), 1.0), ((0.9, 0.9, 2, 0.0, 0.0), 0.1),
                  ((0.9, 0.9, 3, 0.0, 0.0), 0.91), ((0.9, 0.9, 4, 0.0, 0.0), 0.181),
