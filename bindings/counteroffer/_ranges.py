@@ -51,11 +51,12 @@ FIXED_ONLY = {"own_opens", "continuous"}
 def model_spec() -> FunctionSpec:
     """The 14 inputs of solve_from_rates (cto_range_input's order) as a FunctionSpec for
     the conversions and messages: each argument's label, help, kind and plausible range
-    are the library table's (share_from_rates, then solve, then the first function with
-    an argument of that name), as the add-in does."""
+    are the library table's (solve_from_rates when the table has it, share_from_rates,
+    solve, then the first function with an argument of that name), as the add-in does."""
     if not _SPEC:
         specs = load_specs()
-        order = sorted(specs, key=lambda s: (s.name != "share_from_rates", s.name != "solve"))
+        order = sorted(specs, key=lambda s: (s.name != "solve_from_rates",
+                                             s.name != "share_from_rates", s.name != "solve"))
         args = tuple(next(a for s in order for a in s.args if a.name == n) for n in INPUTS)
         none = {a.name: (None, -math.inf) for a in args if a.name in ("own_outside",
                                                                        "other_outside")}
