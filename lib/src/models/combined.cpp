@@ -3,6 +3,7 @@
 // Formulas, sources and status tables are documented in the public header; the comments
 // here explain the numerical choices.
 #include <algorithm>
+#include <cfloat>
 #include <cmath>
 
 #include "combined.hpp"
@@ -85,9 +86,24 @@ void set_losses(const game::Side &A, const game::Side &B, const game::Stationary
     o->other_delay_loss = lossB;
 }
 
+// Money amounts beyond this are refused as too large to compute (kOverflow, reported as
+// an invalid surplus): the game's values add and subtract up to a handful of them, and
+// with every amount below DBL_MAX / 64 no sum or difference of the solver overflows.
+constexpr double kMoneyMax = DBL_MAX / 64;
+
+bool too_large(const SolveIn &in) {
+    const double amounts[] = {in.surplus,    in.own_fallback, in.other_fallback,
+                              in.own_inside, in.other_inside, in.own_outside,
+                              in.other_outside};
+    for (double x : amounts)
+        if (std::isfinite(x) && std::fabs(x) > kMoneyMax) return true;  // -inf: absent
+    return false;
+}
+
 // Solves with own called A.  Inputs are already validated.  Returns a CTO_* status or
 // kOverflow (finite inputs whose combination overflows).
 int solve_core(const SolveIn &in, const Factors &f, SolveOut *o) {
+    if (too_large(in)) return kOverflow;
     const game::Side A = make_side(f.own_d, f.own_om, in.p, in.own_fallback, in.own_inside,
                                    in.own_outside);
     const game::Side B = make_side(f.oth_d, f.oth_om, in.p, in.other_fallback,
