@@ -224,3 +224,22 @@ def test_round_table_as_long_as_the_path(book):
     assert len(round_charts) == 2
     for ranges in round_charts:
         assert max(r.EndRow for r in ranges) == PATH + 6
+
+
+@pytest.mark.parametrize("rounds", [2, 8, 9])
+def test_round_table_equals_the_package(book, rounds):
+    """The round table equals the Python package's offer_path_rows for the same inputs
+    (the same library through the other surface: rel. 1e-12)."""
+    if not hasattr(co, "offer_path_rows"):
+        pytest.skip("this venv's counteroffer package predates offer_path_rows")
+    c = Cells(book(NAME))
+    c.set("B14", rounds)
+    fo, ft = factors(c)
+    p = co.offer_path_rows(c.v("B7"), c.v("B8"), fo, ft, rounds=rounds,
+                           known_value=c.v("B9"))
+    assert len(p.offer) == sum(c.s("A%d" % (PATH + k)) != "" for k in range(12))
+    for k in range(len(p.offer)):
+        r = PATH + k
+        for col, want in zip("BCDE", (p.offer[k], p.cutoff[k], p.round_probability[k],
+                                      p.cumulative_probability[k])):
+            assert close(c.v("%s%d" % (col, r)), float(want), absolute=1e-13), (col, r)

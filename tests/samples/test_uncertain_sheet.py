@@ -147,3 +147,37 @@ def test_input_check(book):
     c.cell("D16").setString("")
     c.doc.calculateAll()
     assert c.s("B17") == "an input cell is empty (Calc would read it as 0)"
+
+
+def package_inputs(c):
+    """The sheet's inputs as share_range / share_swing arguments (PERT ranges, the
+    walk-away values as outside options only, as the sheet passes them)."""
+    rate, p, walk = ranges(c)
+    return dict(own_rate=c.v("B8"), other_rate=rate, days=c.v("B9"), breakdown_prob=p,
+                own_outside=c.v("B10"), other_outside=walk, surplus=c.v("B7"),
+                own_opens=c.b("B11"), basis=c.v("B12"))
+
+
+def test_estimates_equal_the_package(book):
+    """The estimator's output block, the percentile table and the tornado equal the
+    Python package's share_range and share_swing for the same inputs and seed (the same
+    library through the other surface: rel. 1e-12)."""
+    if not hasattr(co, "share_range"):
+        pytest.skip("this venv's counteroffer package predates share_range")
+    c = Cells(book(NAME))
+    kw = package_inputs(c)
+    r = co.share_range(**kw)
+    want = [e.value for e in r.own] + [e.value for e in r.other] + [
+        r.own_mean.value, r.other_mean.value, r.p_rational.value, r.p_own_binds.value,
+        r.p_other_binds.value, r.edge_fraction.value]
+    for i, x in enumerate(want):
+        assert close(c.v("B%d" % (OUT + i)), x), (i, c.v("B%d" % (OUT + i)), x)
+    assert c.v("B%d" % (OUT + 12)) == r.points_per_replicate
+    table = co.share_range(**kw, probabilities=tuple(PROBS))
+    for i, e in enumerate(table.own):
+        assert close(c.v("H%d" % (OUT + i)), e.value), PROBS[i]
+    swing = co.share_swing(**kw)
+    for k, row in enumerate(swing.rows):
+        assert c.s("B%d" % (SORTED + k)) == row.input
+        assert close(c.v("C%d" % (SORTED + k)), row.at_low)
+        assert close(c.v("D%d" % (SORTED + k)), row.at_high)
