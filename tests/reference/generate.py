@@ -610,7 +610,8 @@ def gen_outside_option_share():
                 wB = u(1.0, 1.5) * S
         wO, wT = (wA, wB) if opens else (wB, wA)
         nd = no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0)
-        res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), opens, nd)
+        res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), opens, nd,
+                         allow_ties=(kind == 4))  # drawn at a threshold on purpose
         if res is None:
             continue
         add(fn, [dO, dT, wO, wT, S, opens], res[0], [res[1]], res[5] + "; " + src)

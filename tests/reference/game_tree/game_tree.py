@@ -77,14 +77,17 @@ def apply(M, s):
 
 def block(A, B, S, s):
     """Rounds 2k+1 (B proposes) then 2k (A proposes), from state s = (vA, vB) at round
-    2k+2.  Returns the state at round 2k, the two kinds and the block's 3x3 matrix."""
+    2k+2.  Returns the state at round 2k, the two rounds' decisions (with whether the
+    responder's walk-away value sets its payoff: the block's matrix depends on it) and
+    the block's 3x3 matrix."""
     vA, vB = s
-    yB, zA, k1, _, _, (pp, pr, p0, rr, r0) = one_round(B, A, S, vB, vA)
+    yB, zA, k1, wm1, _, (pp, pr, p0, rr, r0) = one_round(B, A, S, vB, vA)
     # round 2k+1: B proposer: yB = pp vB + pr vA + p0 ; zA = rr vA + r0
     M1 = [[rr, 0, r0], [pr, pp, p0], [0, 0, 1]]          # (vA, vB) -> (zA, yB)
-    xA, tB, k0, _, _, (qq, qr, q0, ss, s0) = one_round(A, B, S, zA, yB)
+    xA, tB, k0, wm0, _, (qq, qr, q0, ss, s0) = one_round(A, B, S, zA, yB)
     M0 = [[qq, qr, q0], [0, ss, s0], [0, 0, 1]]          # (zA, yB) -> (xA, tB)
-    return [xA, tB], (k1, k0), matmul(M0, M1)
+    walks = (wm1 is not None and wm1 >= 0, wm0 is not None and wm0 >= 0)
+    return [xA, tB], (k1, k0) + walks, matmul(M0, M1)
 
 
 def solve_game(A, B, S, T):
