@@ -341,6 +341,7 @@ def deadline_share(
     other_fallback: _Real = 0,
     surplus: _Real = 1,
     own_opens: bool = True,
+    breakdown_prob: _Real = 0,
     *,
     out: None = None,
 ) -> float: ...
@@ -353,6 +354,7 @@ def deadline_share(
     other_fallback: _Array = 0,
     surplus: _Array = 1,
     own_opens: _Array = True,
+    breakdown_prob: _Array = 0,
     *,
     out: Any = None,
 ) -> Any: ...

@@ -129,8 +129,17 @@ def _default(spec: FunctionSpec, arg: ArgSpec) -> str:
 def _c_prototype(spec: FunctionSpec) -> str:
     if len(spec.outputs) > 1:
         return f"`cto_{spec.name}`: a struct in, a struct out (see the header)"
-    params = ", ".join(f"{C_TYPES.get(a.kind, 'double')} {a.name}" for a in spec.args)
-    return f"`int cto_{spec.name}({params}, double *out)`"
+    # The named C functions of the definition: one per released argument list (an
+    # argument appended later gets a new C function, the old one stays).
+    from counteroffer._definitions import definitions
+    named = definitions().get(spec.name, {}).get("named") or [
+        {"name": spec.name, "args": len(spec.args)}]
+    protos = []
+    for n in named:
+        params = ", ".join(f"{C_TYPES.get(a.kind, 'double')} {a.name}"
+                           for a in spec.args[: n["args"]])
+        protos.append(f"`int cto_{n['name']}({params}, double *out)`")
+    return "; ".join(protos)
 
 
 def _arguments(spec: FunctionSpec) -> List[str]:

@@ -26,7 +26,7 @@ C_TYPES = {"bool": "int", "count": "int64_t", "choice": "int"}
 
 _FUNCTION_KEYS = {"id", "name", "calc_name", "summary", "formula", "source", "statuses",
                   "args", "arg", "output", "example", "model", "adapter", "block_kernel",
-                  "outcome", "reference", "no_deal_nan"}
+                  "outcome", "reference", "no_deal_nan", "named"}
 _ARG_KEYS = {"name", "label", "help", "kind", "default", "min", "choices", "plausible", "slip", "rule"}
 
 
@@ -86,6 +86,10 @@ class Function:
     # The result has no value without a deal (e.g. the expected round of agreement): NaN
     # with CTO_E_NO_DEAL instead of own's no-deal payoff.
     no_deal_nan: bool
+    # The named C functions: (C name without cto_, number of leading arguments it takes;
+    # the rest take their defaults).  Default: one, cto_<name> with every argument.  A
+    # C function is never changed once released, so an appended argument gets a new one.
+    named: Tuple[Tuple[str, int], ...]
     adapter: bool  # table thunk and named C entry are hand-written (struct interfaces)
     block_kernel: Optional[str]
     example_scenario: Optional[str]
@@ -215,6 +219,8 @@ def _function(path: pathlib.Path, shared: Dict[str, Arg]) -> Function:
                     args=tuple(args), outputs=outputs, model=d.get("model", name),
                     outcome=outcome, reference=d.get("reference"),
                     no_deal_nan=bool(d.get("no_deal_nan", False)),
+                    named=tuple((n["name"], int(n["args"])) for n in d.get("named", []))
+                    or ((name, len(args)),),
                     adapter=adapter, block_kernel=d.get("block_kernel"),
                     example_scenario=example.get("scenario"),
                     example_python=(example.get("python") or "").strip("\n") or None,
@@ -228,6 +234,12 @@ def load(directory: pathlib.Path = FUNCTIONS_DIR) -> List[Function]:
                  if p.name != "arguments.toml"]
     functions.sort(key=lambda f: f.id)
     for f in functions:
+        if not f.adapter and not any(n == len(f.args) for _c, n in f.named):
+            raise DefinitionError(f"{f.name}: one named C function must take every argument")
+        for c, n in f.named:
+            if not 0 < n <= len(f.args) or any(not a.has_default for a in f.args[n:]):
+                raise DefinitionError(f"{f.name}: cto_{c} may leave out only trailing "
+                                      "arguments with defaults")
         if len(f.args) > 32 or len(f.outputs) > 32:
             raise DefinitionError(f"{f.name}: more than CTO_MAX_ARGS / CTO_MAX_OUTPUTS (32)")
     ids = [f.id for f in functions]

@@ -147,9 +147,18 @@ def _out_type(f: Function) -> str:
     return f"{f.outcome[0]} *" if f.outcome else "double *"
 
 
-def _signature(f: Function) -> str:
-    params = ", ".join(f"{a.c_type} {a.name}" for a in f.args)
-    return f"int cto_{f.name}({params}, {_out_type(f)}out)"
+def _signature(f: Function, cname: str, n_args: int) -> str:
+    params = ", ".join(f"{a.c_type} {a.name}" for a in f.args[:n_args])
+    return f"int cto_{cname}({params}, {_out_type(f)}out)"
+
+
+def _default_literal(a: Arg) -> str:
+    """A left-out argument's default as a C value of the core's parameter type."""
+    if a.kind == "bool":
+        return "true" if a.default else "false"
+    if a.kind in ("count", "choice"):
+        return str(int(a.default))
+    return c_double(a.default).replace("kInf", "core::kInf")
 
 
 def _named_struct_body(f: Function, call: List[str]) -> List[str]:
@@ -175,17 +184,31 @@ def named(functions: List[Function]) -> str:
     for f in functions:
         if f.adapter:
             continue
-        types = ", ".join([a.c_type for a in f.args] + [_out_type(f)])
-        out.append(f"static_assert(std::is_same_v<decltype(&cto_{f.name}), int (*)({types})>,")
-        out.append(f'              "cto_{f.name}: the header prototype and lib/functions/{f.name}.toml differ");')
+        for cname, n in f.named:
+            types = ", ".join([a.c_type for a in f.args[:n]] + [_out_type(f)])
+            out.append(f"static_assert(std::is_same_v<decltype(&cto_{cname}), int (*)({types})>,")
+            out.append(f'              "cto_{cname}: the header prototype and lib/functions/{f.name}.toml differ");')
     out += ["", 'extern "C" {', ""]
     for f in functions:
         if f.adapter:
             continue
+        for cname, n in f.named:
+            out += _named_function(f, cname, n)
+    out.append('}  // extern "C"')
+    out.append("")
+    return "\n".join(out)
+
+
+def _named_function(f: Function, cname: str, n: int) -> List[str]:
+    out = []
+    if True:
         call = []
-        for a in f.args:
-            call.append(f"{a.name} != 0" if a.kind == "bool" else a.name)
-        out.append(f"CTO_API {_signature(f)} {{")
+        for j, a in enumerate(f.args):
+            if j >= n:
+                call.append(_default_literal(a))
+            else:
+                call.append(f"{a.name} != 0" if a.kind == "bool" else a.name)
+        out.append(f"CTO_API {_signature(f, cname, n)} {{")
         if f.outcome:
             out += _named_struct_body(f, call)
         else:
@@ -194,9 +217,7 @@ def named(functions: List[Function]) -> str:
             out.append("    });")
         out.append("}")
         out.append("")
-    out.append('}  // extern "C"')
-    out.append("")
-    return "\n".join(out)
+    return out
 
 
 def dispatch(functions: List[Function]) -> str:
@@ -218,8 +239,9 @@ def dispatch(functions: List[Function]) -> str:
                 call.append(f"static_cast<int>(n[{j}])")
             else:
                 call.append(f"d[{j}]")
+        full = [c for c, n in f.named if n == len(f.args)]
         if f.outcome is None:
-            out.append(f"        case {f.id}: return cto_{f.name}({', '.join(call + ['out'])});")
+            out.append(f"        case {f.id}: return cto_{full[0]}({', '.join(call + ['out'])});")
             continue
         out.append(f"        case {f.id}: {{")
         out.append(f"            {f.outcome[0]} r;")
@@ -266,7 +288,8 @@ def definitions_json(functions: List[Function]) -> str:
              "outputs": [{"name": o.name, "help": o.help, "words": list(o.words),
                           "type": o.c_type} for o in f.outputs],
              "example": {"scenario": f.example_scenario, "python": f.example_python},
-             "reference": f.reference, "no_deal_nan": f.no_deal_nan}
+             "reference": f.reference, "no_deal_nan": f.no_deal_nan,
+             "named": [{"name": c, "args": n} for c, n in f.named]}
             for f in functions]
     return json.dumps({"functions": data}, indent=1, ensure_ascii=False) + "\n"
 

@@ -150,12 +150,20 @@ struct Result {
     std::vector<std::string> failures;
 };
 
+// The number of argument columns: those before "status".
+size_t arg_columns(const Table &t) {
+    for (size_t j = 0; j < t.header.size(); ++j)
+        if (t.header[j] == "status") return j;
+    return t.header.size();
+}
+
 Result check_table(const cto_function_info *f, const Table &t) {
     Result res;
     res.rows = t.rows.size();
     // A table may hold the first outputs only (outputs appended later are checked by the
-    // function's own tests); the caller checked that the header names them in order.
-    const size_t na = static_cast<size_t>(f->n_args), no = t.header.size() - na - 2;
+    // function's own tests) and leave out trailing arguments with defaults (appended
+    // later: the table's rows take their defaults); the caller checked the header.
+    const size_t na = arg_columns(t), no = t.header.size() - na - 2;
     const std::string scale_arg = scale_argument(f->name);
     size_t scale_col = na;
     for (size_t j = 0; j < na; ++j)
@@ -168,9 +176,10 @@ Result check_table(const cto_function_info *f, const Table &t) {
             res.failures.push_back("line " + std::to_string(r + 2) + ": " + why.str());
             continue;
         }
-        std::vector<double> args(na);
+        std::vector<double> args(static_cast<size_t>(f->n_args));
         bool ok = true;
         for (size_t j = 0; j < na; ++j) ok = ok && parse_double(row[j], &args[j]);
+        for (size_t j = na; j < args.size(); ++j) args[j] = f->args[j].default_value;
         const int want_status = status_code(row[na]);
         std::vector<long double> want(no);
         for (size_t k = 0; k < no; ++k) ok = ok && parse_long_double(row[na + 1 + k], &want[k]);
@@ -266,9 +275,12 @@ TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]
         // Arguments, status, the first outputs (all, or those a table was written with
         // before more were appended), source.
         std::vector<std::string> want;
-        for (int j = 0; j < f->n_args; ++j) want.push_back(f->args[j].name);
+        const int n_args = static_cast<int>(arg_columns(t));
+        CHECK(n_args <= f->n_args);
+        for (int j = 0; j < n_args && j < f->n_args; ++j) want.push_back(f->args[j].name);
+        for (int j = n_args; j < f->n_args; ++j) CHECK(f->args[j].has_default);  // left out
         want.push_back("status");
-        const int n_cols = static_cast<int>(t.header.size()) - f->n_args - 2;
+        const int n_cols = static_cast<int>(t.header.size()) - n_args - 2;
         CHECK(n_cols >= 1);
         CHECK(n_cols <= f->n_outputs);
         for (int k = 0; k < n_cols && k < f->n_outputs; ++k) want.push_back(f->outputs[k].name);
@@ -278,7 +290,7 @@ TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]
         // every status the table uses is one of the five names
         std::set<std::string> statuses;
         for (const auto &row : t.rows)
-            if (row.size() > static_cast<size_t>(f->n_args)) statuses.insert(row[static_cast<size_t>(f->n_args)]);
+            if (row.size() > static_cast<size_t>(n_args)) statuses.insert(row[static_cast<size_t>(n_args)]);
         for (const auto &s : statuses) CHECK(status_code(s) >= 0);
         total += t.rows.size();
     }
@@ -298,8 +310,9 @@ TEST_CASE("reference tables: every row within 1e-15 of the 50-digit value", "[re
         REQUIRE(f != nullptr);
         if (external_reference(f->name)) continue;  // checked by the function's own tests
         const Table t = read_table(f->name);
-        if (!t.found || t.header.size() < static_cast<size_t>(f->n_args + 3) ||
-            t.header.size() > static_cast<size_t>(f->n_args + f->n_outputs + 2)) {
+        if (!t.found || arg_columns(t) > static_cast<size_t>(f->n_args) ||
+            t.header.size() < arg_columns(t) + 3 ||
+            t.header.size() > arg_columns(t) + static_cast<size_t>(f->n_outputs) + 2) {
             FAIL_CHECK("table " << f->name << " missing or with a wrong header");
             continue;
         }
