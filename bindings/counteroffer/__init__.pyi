@@ -38,6 +38,7 @@ __all__ = [
     'expected_agreement_round',
     'opening_offer',
     'offer_path',
+    'solve_from_rates',
     'ArrayResult',
     'CounterofferError',
     'CounterofferWarning',
@@ -81,6 +82,7 @@ __all__ = [
     'status_message',
     'DoubleAuctionResult',
     'OfferPathResult',
+    'SolveFromRatesResult',
     'SolveResult',
 ]
 catalogue: Tuple[Any, ...]
@@ -769,6 +771,56 @@ def offer_path(
     rounds: _Array = 0,
     known_value: _Array = 0,
     offerer: Union[Literal['seller', 'buyer'], _Array] = 'seller',
+    *,
+    out: Any = None,
+) -> Any: ...
+
+@dataclass(frozen=True)
+class SolveFromRatesResult:
+    own_share: float
+    other_share: float
+    binding: Optional[Literal['none', 'ours', 'theirs', 'both']]
+    rational: bool
+    own_delay_loss: float
+    other_delay_loss: float
+    opening_advantage: float
+    delayed: bool
+
+@overload
+def solve_from_rates(
+    own_rate: _Real,
+    other_rate: _Real,
+    days: _Real,
+    breakdown_prob: _Real = 0,
+    own_fallback: _Real = 0,
+    other_fallback: _Real = 0,
+    own_inside: _Real = 0,
+    other_inside: _Real = 0,
+    own_outside: Optional[_Real] = None,
+    other_outside: Optional[_Real] = None,
+    surplus: _Real = 1,
+    own_opens: bool = True,
+    basis: _Real = 365,
+    continuous: bool = False,
+    *,
+    out: None = None,
+) -> SolveFromRatesResult: ...
+@overload
+def solve_from_rates(
+    own_rate: _Array,
+    other_rate: _Array,
+    days: _Array,
+    breakdown_prob: _Array = 0,
+    own_fallback: _Array = 0,
+    other_fallback: _Array = 0,
+    own_inside: _Array = 0,
+    other_inside: _Array = 0,
+    own_outside: Optional[_Array] = None,
+    other_outside: Optional[_Array] = None,
+    surplus: _Array = 1,
+    own_opens: _Array = True,
+    basis: _Array = 365,
+    continuous: _Array = False,
     *,
     out: Any = None,
 ) -> Any: ...

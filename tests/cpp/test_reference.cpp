@@ -124,7 +124,7 @@ int status_code(const std::string &s) {
 std::string scale_argument(const std::string &fn) {
     static const std::map<std::string, std::string> m = {
         {"breakdown_share", "surplus"}, {"outside_option_share", "surplus"},
-        {"inside_option_share", "surplus"}, {"solve", "surplus"},
+        {"inside_option_share", "surplus"}, {"solve", "surplus"}, {"solve_from_rates", "surplus"},
         {"deadline_share", "surplus"}, {"nash_share", "surplus"},
         {"risk_averse_share", "surplus"}, {"delay_cost", "stake"},
         {"implied_factor", "1"}};

@@ -42,40 +42,14 @@ INF = float("inf")
 
 # Argument names in catalogue order (CATALOGUE.md; the library's table must agree: the
 # C++ test checks every header against cto_function_info).
-ARGS = {
-    "round_factor": ["rate", "days", "basis", "continuous"],
-    "share": ["own_factor", "other_factor", "surplus", "own_opens"],
-    "share_from_rates": ["own_rate", "other_rate", "days", "surplus", "own_opens", "basis",
-                         "continuous"],
-    "limit_share": ["own_rate", "other_rate", "surplus"],
-    "breakdown_share": ["own_factor", "other_factor", "breakdown_prob", "own_fallback",
-                        "other_fallback", "surplus", "own_opens"],
-    "outside_option_share": ["own_factor", "other_factor", "own_outside", "other_outside",
-                             "surplus", "own_opens"],
-    "inside_option_share": ["own_factor", "other_factor", "own_inside", "other_inside",
-                            "surplus", "own_opens"],
-    "solve": ["own_factor", "other_factor", "breakdown_prob", "own_fallback", "other_fallback",
-              "own_inside", "other_inside", "own_outside", "other_outside", "surplus",
-              "own_opens"],
-    "deadline_share": ["own_factor", "other_factor", "rounds", "own_fallback", "other_fallback",
-                       "surplus", "own_opens"],
-    "fixed_cost_share": ["own_cost", "other_cost", "surplus", "own_opens"],
-    "delay_cost": ["factor", "stake", "breakdown_prob", "fallback"],
-    "first_mover_advantage": ["own_factor", "other_factor", "surplus"],
-    "nash_share": ["own_fallback", "other_fallback", "own_weight", "surplus", "own_curvature",
-                   "other_curvature"],
-    "risk_averse_share": ["own_factor", "other_factor", "own_curvature", "other_curvature",
-                          "utility", "breakdown_prob", "own_fallback", "other_fallback",
-                          "surplus", "own_opens"],
-    "group_share": ["factor", "parties", "position", "surplus"],
-    "majority_share": ["factor", "parties", "votes_needed", "role", "surplus"],
-    "implied_factor": ["observed_share", "other_factor", "own_opens"],
-    "implied_rate": ["observed_share", "other_rate", "days", "own_opens", "basis", "continuous"],
-    "share_sensitivity": ["own_rate", "other_rate", "days", "wrt", "surplus", "own_opens", "basis",
-                          "continuous"],
-    "screening_profit": ["high_value", "low_value", "high_prob", "seller_factor",
-                         "buyer_factor"],
-}
+# Argument names in catalogue order, read from the one definition of each function.
+sys.path.insert(0, os.path.join(HERE, "..", "..", "lib", "gen"))
+import catalogue  # noqa: E402
+
+ARGS = {f.name: [a.name for a in f.args] for f in catalogue.load()}
+# Tables written before an argument was appended keep their columns (the test fills in
+# the appended argument's default): deadline_share gained breakdown_prob in 1.1.
+ARGS["deadline_share"] = ARGS["deadline_share"][:7]
 SOLVE_OUTPUTS = ["own_share", "other_share", "binding", "rational"]
 
 ROWS = {name: [] for name in ARGS}
@@ -409,6 +383,45 @@ def rrate():
     if r < 0.6:
         return u(0.0, 0.4)
     return logu(1e-5, 3.0)
+
+
+def gen_solve_from_rates():
+    """The combined model on factors exp(-rho) formed at 50 digits from the rates (the
+    library forms them in double with expm1/log1p); each row's decision and values by
+    family_row (backward induction over the game tree, tests/reference/game_tree/)."""
+    fn = "solve_from_rates"
+    src = ("factors exp(-c(rate) days/basis) at 50 digits; Rubinstein (1982); BRW (1986); "
+           "Muthoo (1999) chs.3-6 (combined model)")
+    n = 0
+    while n < 140:
+        rO, rT, days = rrate(), rrate(), rdays()
+        basis, cont = RNG.choice([365.0, 360.0, 366.0]), RNG.randrange(2)
+        if rO == 0 and rT == 0:
+            continue
+        dO, dT = mp.exp(-rho_of(rO, days, basis, cont)), mp.exp(-rho_of(rT, days, basis, cont))
+        p = 0.0 if RNG.random() < 0.4 else (u(0, 0.5) if RNG.random() < 0.6 else logu(1e-6, 1))
+        S = rsurplus()
+        bO, bT = (u(-0.4, 0.5) * S, u(-0.4, 0.5) * S) if p > 0 or RNG.random() < 0.3 else (0.0, 0.0)
+        gO, gT = (u(-0.3, 0.4) * S, u(-0.3, 0.4) * S) if RNG.random() < 0.5 else (0.0, 0.0)
+        wO = u(-0.2, 0.8) * S if RNG.random() < 0.5 else -INF
+        wT = u(-0.2, 0.8) * S if RNG.random() < 0.5 else -INF
+        opens = RNG.randrange(2)
+        PO = Party(dO, bO, gO, None if wO == -INF else wO)
+        PT = Party(dT, bT, gT, None if wT == -INF else wT)
+        res = family_row(fn, PO, PT, M(p), M(S), opens, no_deal_payoffs(PO, PT, M(p)))
+        if res is None or res[0] == "indeterminate" or (res[0] == "ok" and res[6]):
+            continue
+        add(fn, [rO, rT, days, p, bO, bT, gO, gT, wO, wT, S, opens, basis, cont], res[0],
+            [res[1], res[2], res[3], res[4]], res[5] + "; " + src)
+        n += 1
+    for op in (0, 1):
+        add(fn, [0.0, 0.0, 30.0, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, op, 365.0, 0],
+            "indeterminate", [NAN, NAN, NAN, 1], "both rates 0 and no breakdown: every split is an SPE")
+    for a in ([-0.1, 0.05, 30.0, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 1, 365.0, 0],
+              [0.1, 0.05, -1.0, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 1, 365.0, 0],
+              [0.1, 0.05, 30.0, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 1, 0.0, 0],
+              [0.1, 0.05, 30.0, 1.5, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 1, 365.0, 0]):
+        add(fn, a, "invalid", [NAN, NAN, NAN, NAN], "domain rule (bad-input rules of the contract)")
 
 
 def gen_share_from_rates():
@@ -1581,7 +1594,7 @@ def write_tables(only=()):
     for fn, rows in ROWS.items():
         if only and fn not in only:
             continue   # a partial run leaves the other tables alone
-        outs = SOLVE_OUTPUTS if fn == "solve" else ["value"]
+        outs = SOLVE_OUTPUTS if fn in ("solve", "solve_from_rates") else ["value"]
         path = os.path.join(OUT, fn + ".csv")
         with open(path, "w", newline="") as fh:
             w = csv.writer(fh, lineterminator="\n")
@@ -1603,7 +1616,7 @@ def main():
             gen_outside_option_share, gen_inside_option_share, gen_solve, gen_deadline_share,
             gen_fixed_cost_share, gen_delay_cost, gen_first_mover_advantage, gen_nash_share,
             gen_risk_averse_share, gen_group_share, gen_majority_share, gen_implied_factor,
-            gen_implied_rate, gen_share_sensitivity, gen_screening_profit]
+            gen_implied_rate, gen_share_sensitivity, gen_screening_profit, gen_solve_from_rates]
     only = set(sys.argv[1:])
     for g in gens:
         t = time.time()

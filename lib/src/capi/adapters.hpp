@@ -63,6 +63,22 @@ inline int solve_thunk(const double *a, double *o, int *bad) {
     return st;
 }
 
+// solve_from_rates through the table: the 14 arguments in catalogue order, solve's outputs.
+inline int solve_from_rates_thunk(const double *a, double *o, int *bad) {
+    bool opens, continuous;
+    if (!table::to_bool(a[11], opens)) return table::reject(11, o, 8, bad);
+    if (!table::to_bool(a[13], continuous)) return table::reject(13, o, 8, bad);
+    const core::SolveRatesIn in{a[0], a[1], a[2],  a[3],  a[4], a[5],  a[6],
+                                a[7], a[8], a[9], a[10], opens, a[12], continuous};
+    core::SolveOut so;
+    const int st = core::solve_rates(in, &so, bad);
+    cto_solve_outcome c;
+    c.size = sizeof c;
+    publish(so, &c);
+    to_values(st, c, o);
+    return st;
+}
+
 }  // namespace cto::entry
 
 namespace cto::core {
