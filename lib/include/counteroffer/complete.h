@@ -250,7 +250,7 @@ typedef struct cto_solve_rates_input {
 CTO_API int cto_solve_rates(const cto_solve_rates_input *in, cto_solve_outcome *out);
 
 /*! cto_deadline_share: own share when at most `rounds` offers can be made.
- *  Model (Stahl 1972; Gibbons 1992 s.2.1.D; REFERENCE s.3): proposers alternate,
+ *  Model (Ståhl 1972; Gibbons 1992 s.2.1.D; docs/models/complete-information.md s.3): proposers alternate,
  *  own proposes in round 1 when own_opens; if the last offer is rejected the
  *  parties get their deadline payoffs (valued at the date of the final rejection).
  *  Exact backward induction.  In each round the proposer either offers the
