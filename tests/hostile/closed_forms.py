@@ -72,9 +72,14 @@ def o_breakdown(d1, d2, p, b1, b2, s, opens):
     return ("ok", s - (n2 + (s - n1 - n2) * (1 - a1) / (1 - a1 * a2)), scale)
 
 
-def o_deadline(d1, d2, rounds, b1, b2, s, opens):
-    """Stahl (1972) by backward induction (REFERENCE.md s.3: the last proposer keeps
-    pie - b_responder; earlier proposers offer delta_r x the responder's next share)."""
+def o_deadline(d1, d2, rounds, b1, b2, s, opens, p=0.0):
+    """Ståhl (1972) by backward induction (docs/models/complete-information.md s.3: the
+    last proposer keeps pie - b_responder; earlier proposers offer delta_r x the
+    responder's next share).  With a breakdown risk p > 0 (appended in 1.1) there is no
+    closed form here: the value is checked by the C++ tests against quad-precision
+    backward induction."""
+    if p != 0:
+        return None
     t = int(rounds)
     if t == 0:
         return ("nodeal", None)
