@@ -74,8 +74,14 @@ def typical_call(args):
 
 # (Calc name, [(argument, kind, default or None, min_count or choices)], base call),
 # in the add-in's order.
-F = [(f.calc, [tuple(a) for a in f.args], BASE.get(f.name) or typical_call(f.args))
-     for f in functions()]
+def base_call(f):
+    """The hand-written base call, completed from the kinds for arguments appended later
+    (deadline_share's breakdown_prob in 1.1: its default)."""
+    base = list(BASE.get(f.name) or [])
+    return base + typical_call(f.args)[len(base):]
+
+
+F = [(f.calc, [tuple(a) for a in f.args], base_call(f)) for f in functions()]
 FUN = {f[0]: f for f in F}
 
 
