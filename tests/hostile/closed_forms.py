@@ -56,8 +56,15 @@ def o_limit(r1, r2, s):
     return ("ok", s * r2 / (r1 + r2))
 
 
+# The combined model refuses money amounts beyond DBL_MAX / 64 as too large to compute
+# (invalid, blaming the surplus; lib/src/models/combined.cpp, the header's rule).
+COMBINED_MONEY_MAX = mp.mpf(1.7976931348623157e308) / 64
+
+
 def o_breakdown(d1, d2, p, b1, b2, s, opens):
     """BRW (1986); Muthoo (1999) ch.4; the header's closed form (REFERENCE.md s.4.2)."""
+    if max(abs(b1), abs(b2), abs(s)) > COMBINED_MONEY_MAX:
+        raise Invalid("a money amount beyond DBL_MAX/64 is too large to compute (header)")
     if p == 0 and d1 == 1 and d2 == 1:
         return None if s <= 0 else ("indet", None)
     a1, a2 = (1 - p) * d1, (1 - p) * d2
