@@ -23,6 +23,7 @@
 #include <string>
 #include <vector>
 
+#include "test_csv.hpp"
 #include "models/offers.hpp"
 
 #ifndef CTO_REFERENCE_DIR
@@ -31,24 +32,7 @@
 
 namespace {
 
-// Rows of a CSV written by Python's csv module (the last field, the source, may be quoted
-// and is not needed: fields are split on commas up to the known count).
-std::vector<std::vector<std::string>> read_csv(const std::string &path, std::vector<std::string> *head) {
-    std::ifstream in(path);
-    std::vector<std::vector<std::string>> rows;
-    std::string line;
-    bool first = true;
-    while (std::getline(in, line)) {
-        std::vector<std::string> f;
-        std::stringstream ss(line);
-        std::string cell;
-        while (std::getline(ss, cell, ',')) f.push_back(cell);
-        if (first) *head = f;
-        else rows.push_back(f);
-        first = false;
-    }
-    return rows;
-}
+using cto_test::read_csv;
 
 }  // namespace
 
