@@ -4,7 +4,9 @@
 // and the probabilities counted over draws, against values computed by hand.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <vector>
 
 #include "range/quantile.hpp"
@@ -225,4 +227,41 @@ TEST_CASE("Range estimators: type-7 quantiles, pooled selection, t quantiles", "
     CHECK(digit_tolerance(36.7, 3) == Approx(0.05).epsilon(1e-15));
     CHECK(digits_reached(0.367, 4.9e-4) == 3);
     CHECK(digits_reached(0.367, 5.1e-4) == 2);
+}
+
+TEST_CASE("Ranges: the sort puts doubles in IEEE 754 totalOrder at every length", "[range]") {
+    // IEEE 754-2008 s.5.10 totalOrder: -inf < negatives < -0 < +0 < positives < +inf,
+    // compared here with std::sort on a comparator written from that definition, for lengths
+    // on both sides of the switch from comparison to radix sorting, and for values that share
+    // their leading bits (the digits the radix sort skips) and values that do not.
+    auto total_less = [](double a, double b) {
+        if (a < b) return true;
+        if (b < a) return false;
+        return std::signbit(a) && !std::signbit(b);  // -0 before +0
+    };
+    uint64_t state = 42;
+    auto next = [&state] {  // SplitMix64 (Steele, Lea & Flood 2014) as a test stream
+        state += 0x9E3779B97F4A7C15ull;
+        uint64_t z = state;
+        z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
+        z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
+        return z ^ (z >> 31);
+    };
+    for (size_t n : {size_t{1}, size_t{2}, size_t{255}, size_t{256}, size_t{257}, size_t{4096}}) {
+        for (int kind = 0; kind < 3; ++kind) {
+            std::vector<double> y(n);
+            for (size_t i = 0; i < n; ++i) {
+                const double u = static_cast<double>(next() >> 11) * 0x1p-53;
+                if (kind == 0) y[i] = 41.0 + u;                    // one deal: shared leading bits
+                else if (kind == 1) y[i] = (u - 0.5) * 1e6;        // both signs, wide range
+                else y[i] = (i % 7 == 0) ? -0.0 : (i % 11 == 0) ? 0.0 : (i % 13 == 0) ? -INFINITY
+                         : (i % 17 == 0) ? INFINITY : std::ldexp(u, static_cast<int>(next() % 200) - 100);
+            }
+            std::vector<double> want = y;
+            std::sort(want.begin(), want.end(), total_less);
+            sort_total(y.data(), n);
+            INFO("n=" << n << " kind=" << kind);
+            for (size_t i = 0; i < n; ++i) REQUIRE(bits(y[i]) == bits(want[i]));
+        }
+    }
 }
