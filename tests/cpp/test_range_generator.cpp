@@ -122,9 +122,9 @@ TEST_CASE("Owen scrambling keeps the net: one point per interval, u in (0, 1)", 
 
 TEST_CASE("Owen scrambling: the prefix cache gives the same bits", "[range]") {
     // owen_scramble_cached is a cache of owen_scramble's flips (scramble.hpp): equal for
-    // every x, on the AVX2 path (scramble_simd.cpp, where the CPU has it) and the scalar
-    // one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes, for several
-    // cache depths.
+    // every x, on each path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them)
+    // and the scalar one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes,
+    // for several cache depths.  The paths the CPU has are named in the test output.
     std::vector<uint32_t> mask(size_t{1} << kMaxPrefixBits);
     for (int L : {0, 1, 2, 7, 12, 16}) {
         const uint64_t key = scramble_key(20240601u, 3, static_cast<uint64_t>(L));
@@ -134,8 +134,12 @@ TEST_CASE("Owen scrambling: the prefix cache gives the same bits", "[range]") {
             state += kGolden;
             const uint32_t x = t == 0 ? 0u : t == 1 ? 0xFFFFFFFFu : static_cast<uint32_t>(mix64(state) >> 32);
             const uint32_t want = owen_scramble(x, key);
-            REQUIRE(owen_scramble_cached(x, key, L, mask.data()) == want);  // AVX2 if present
+            REQUIRE(owen_scramble_cached(x, key, L, mask.data()) == want);  // widest path
+            REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kAvx2) == want);
             REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kScalar) == want);
         }
     }
+    uint32_t probe = 0;
+    WARN("vector paths on this CPU: AVX-512 " << scramble_tail_avx512(1, 2, 3, &probe)
+                                              << ", AVX2 " << scramble_tail_avx2(1, 2, 3, &probe));
 }

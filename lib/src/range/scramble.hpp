@@ -47,12 +47,15 @@ inline constexpr int kMaxPrefixBits = 16;
 void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
 uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask);
 
-// The flips of digits first..32 (first >= 2) with AVX2 (scramble_simd.cpp): returns false
-// (and writes nothing) when the CPU lacks AVX2; else the same bits as the scalar loop.
+// The flips of digits first..32 (first >= 2) with AVX-512 (AVX512F and AVX512DQ) or AVX2
+// (scramble_simd.cpp): each returns false (and writes nothing) when the CPU lacks it; else
+// the same bits as the scalar loop.
+bool scramble_tail_avx512(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
 bool scramble_tail_avx2(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
 
-// Whether owen_scramble_cached may use the AVX2 path (tests switch it off to compare).
-enum class Simd { kAuto, kScalar };
+// Which path owen_scramble_cached takes: kAuto the widest the CPU has; the others force a
+// narrower one (falling back to scalar), so that tests compare every path on one machine.
+enum class Simd { kAuto, kAvx2, kScalar };
 uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask, Simd simd);
 
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
