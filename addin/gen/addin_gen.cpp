@@ -2,9 +2,14 @@
 // table (cto_function_count / cto_function_at), so a new catalogue row needs no
 // hand-written add-in code.  The functions that are not catalogue rows (DEALRANGE,
 // DEALRANGEOUTCOME, DEALSWING, DEALOFFERPATH: src/range_args.h) take their arguments'
-// text from the catalogue too; DEALREASON and DEALCALLPROBE are written out here.
+// text from the catalogue too; DEALREASON is written out here.
 //
-//   addin_gen OUTDIR
+//   addin_gen OUTDIR [--test-build]
+//
+// --test-build adds the diagnostic DEALCALLPROBE (the call-overhead probe the sheet
+// tests and the add-in benchmark use).  It is for the test build of the extension
+// (counteroffer-test.oxt) only: the shipped counteroffer.oxt has no such function in
+// its interface, its Function Wizard data or its library (addin/README.md).
 //
 // writes into OUTDIR:
 //   XDealFunctions.idl   the UNO interface and service (one method per function)
@@ -37,7 +42,8 @@ const char *const kService = "org.counteroffer.DealFunctions";
 // extension's description (addin/pkg/description-en.txt), not in every function.
 
 // Every method of the interface: one per catalogue function, one "outcome" form
-// for each function with more than one output, and the call-overhead probe.
+// for each function with more than one output, the functions that are not catalogue
+// rows, and (test build only) the call-overhead probe.
 struct Method {
     std::string method;     // IDL method name, e.g. getShare
     std::string calc;       // Calc display name, e.g. DEALSHARE
@@ -194,9 +200,9 @@ Method outcome_method(const cto_function_info *f, const Method &m) {
     return o;
 }
 
-// The call-overhead probe, with the argument shape of DEALSHARE (two required, two
-// optional), so that comparing the two measures the add-in's own work and not Calc's
-// cost per parameter.
+// The call-overhead probe (test build only), with the argument shape of DEALSHARE (two
+// required, two optional), so that comparing the two measures the add-in's own work and
+// not Calc's cost per parameter.
 Method probe_method() {
     Method probe;
     probe.method = "getCallProbe";
@@ -358,7 +364,7 @@ bool offer_path_method(Method &m) {
     return true;
 }
 
-std::vector<Method> collect() {
+std::vector<Method> collect(bool test_build) {
     std::vector<Method> ms;
     const size_t n = cto_function_count();
     for (size_t i = 0; i < n; ++i) {
@@ -374,7 +380,7 @@ std::vector<Method> collect() {
         !swing_method(swing) || !offer_path_method(path))
         return {};
     for (Method *m : {&range, &range_outcome, &swing, &path}) ms.push_back(*m);
-    ms.push_back(probe_method());
+    if (test_build) ms.push_back(probe_method());
     ms.push_back(reason_method());
     return ms;
 }
@@ -495,15 +501,16 @@ std::string make_list(const std::vector<Method> &ms) {
 } // namespace
 
 int main(int argc, char **argv) {
-    if (argc != 2) {
-        std::cerr << "usage: addin_gen OUTDIR\n";
+    const bool test_build = argc == 3 && std::string(argv[2]) == "--test-build";
+    if (argc != 2 && !test_build) {
+        std::cerr << "usage: addin_gen OUTDIR [--test-build]\n";
         return 2;
     }
     if (cto_version_number() != CTO_VERSION_NUMBER) {
         std::cerr << "addin_gen: library version differs from the header\n";
         return 1;
     }
-    const std::vector<Method> ms = collect();
+    const std::vector<Method> ms = collect(test_build);
     if (ms.size() < 2) {
         std::cerr << "addin_gen: the catalogue table is empty\n";
         return 1;
