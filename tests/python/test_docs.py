@@ -88,3 +88,16 @@ def test_python_docs_name_no_file_outside_the_repository():
         text = path.read_text(encoding="utf-8")
         for name in ("CATALOGUE.md", "REFERENCE.md", "REFERENCE-PRIVATE.md", "STYLE.md"):
             assert name not in text, (path, name)
+
+
+def test_value_error_is_not_called_a_library_defect():
+    # Issue 14 point 12: Calc itself shows #VALUE! for an argument it cannot pass to the
+    # add-in, so no document may present #VALUE! as a defect of the library, and the
+    # three places that map statuses to Calc's errors say so.
+    for path in DOCUMENTS:
+        for line in path.read_text(encoding="utf-8").splitlines():
+            if "#VALUE!" in line:
+                assert "defect" not in line.lower(), (path, line)
+    for name in ("README.md", "addin/README.md", "docs/reference/functions.md"):
+        text = " ".join((ROOT / name).read_text(encoding="utf-8").split())
+        assert re.search(r"#VALUE![^|]*(range (that )?hold(s|ing) an error cell)", text), name

@@ -1,6 +1,7 @@
 """The Function Wizard of the shipped extension, which the sample sheets run on
 (scripts/test.d/40-samples.sh installs counteroffer.oxt as users get it, not the test
-build): no diagnostic function is visible or callable (issue 14 point 4).
+build): no diagnostic function is visible or callable (issue 14 point 4), and a function
+that can give no deal says #N/A in its description (point 12).
 
 Source of the expectations: addin/README.md (the shipped extension has the user
 functions only, in category Financial); the test build's diagnostic function from
@@ -47,3 +48,7 @@ def test_the_diagnostic_function_cannot_be_called(office):
     finally:
         doc.close(True)
 
+
+@pytest.mark.parametrize("name", ["DEALSHARE", "DEALSOLVE", "DEALDEADLINE", "DEALAGREEPROB"])
+def test_no_deal_is_explained_as_na(wizard, name):
+    assert "Shows #N/A when no deal is rational" in wizard[name]["Description"]

@@ -9,23 +9,39 @@ Checks, in the shipped counteroffer.oxt:
      the UNO type library (counteroffer_types.rdb: every interface method has Wizard
      data), and none of the test build's diagnostic names anywhere in the package
      (type library, Wizard data, component library);
-  2. the caution (model estimates, not advice) stands once, in the extension's
+  2. #N/A explained: every function that can give "no deal" (its statuses in
+     lib/functions/*.toml name no_deal, directly or as another function's) says in its
+     Wizard description that it shows #N/A then, and no other function says so; the
+     functions whose reference tables (tests/reference) hold a no-deal row are among
+     them; no Wizard text calls anything a defect;
+  3. the caution (model estimates, not advice) stands once, in the extension's
      description, and in no function's description.
 The test build (counteroffer-test.oxt) must hold the diagnostic DEALCALLPROBE and
 be flagged by the same rules: that shows the checks of point 1 find what they look for.
 
-Source of the expectations: addin/README.md states the rules.
+Source of the expectations: the one definition of each function (lib/functions, read by
+lib/gen/catalogue.py) and the reference tables; addin/README.md states the rules.
 Exit status 0 only if everything passed.
 """
 import argparse
+import csv
+import glob
 import os
 import re
 import sys
 import xml.etree.ElementTree as ET
 import zipfile
 
+ROOT = os.path.abspath(os.path.join(os.path.dirname(__file__), "..", ".."))
+sys.path.insert(0, os.path.join(ROOT, "lib", "gen"))
+import catalogue  # noqa: E402  (the one reader of the definitions)
+
 OOR = "{http://openoffice.org/2001/registry}"
+NO_DEAL = "Shows #N/A when no deal is rational for both sides"
 CAUTION = "not financial, legal or tax advice"
+# A catalogue function without a Calc name of its own is served by an add-in function
+# that is not a catalogue row (addin/src/range_args.h, addin/README.md).
+CALC_FORM = {"offer_path": "DEALOFFERPATH"}
 
 
 def wizard(oxt):
@@ -53,6 +69,39 @@ def idl_methods(oxt):
 
 def diagnostic(name, desc, category):
     return category != "Financial" or "PROBE" in name.upper() or "diagnostic" in desc.lower()
+
+
+def statuses_name_no_deal(f, by_name, depth=0):
+    if "no_deal" in f.statuses:
+        return True
+    m = re.match(r"as (\w+)", f.statuses)
+    return bool(m) and depth < 8 and statuses_name_no_deal(by_name[m.group(1)], by_name,
+                                                           depth + 1)
+
+
+def no_deal_functions():
+    """{Calc name} of every plain (not OUTCOME) form that can give no deal."""
+    funcs = catalogue.load()
+    by_name = {f.name: f for f in funcs}
+    out = set()
+    for f in funcs:
+        calc = f.calc_name or CALC_FORM.get(f.name)
+        if calc and statuses_name_no_deal(f, by_name):
+            out.add(calc)
+    # Independent of the definitions' wording: a function whose reference table has a
+    # no-deal row can give no deal.
+    tables = glob.glob(os.path.join(ROOT, "tests", "reference", "*.csv")) + \
+        glob.glob(os.path.join(ROOT, "tests", "reference", "private", "*.csv"))
+    for path in tables:
+        name = os.path.basename(path)[:-4]
+        if name not in by_name:
+            continue
+        with open(path, newline="") as fh:
+            if any(row.get("status") == "no_deal" for row in csv.DictReader(fh)):
+                calc = by_name[name].calc_name or CALC_FORM.get(name)
+                if calc:
+                    assert calc in out, "%s has no-deal rows but its statuses say none" % name
+    return out
 
 
 class Failures:
@@ -93,13 +142,28 @@ def check_shipped(oxt, test_oxt, fails):
         for n, blob in blobs.items():
             fails.check(m.encode() not in blob and name.encode() not in blob,
                         "shipped: %s names the diagnostic %s" % (n, name))
-    # 2. the caution once, in the extension's description only
+    # 2. #N/A where the user meets it
+    expected = no_deal_functions()
+    names = {v[0]: v for v in wiz.values()}
+    for calc in sorted(expected):
+        fails.check(calc in names, "shipped: %s is missing" % calc)
+        if calc in names:
+            fails.check(NO_DEAL in names[calc][1],
+                        "%s can give no deal but its description does not say #N/A" % calc)
+    for calc, (_, desc, _) in names.items():
+        if calc not in expected and not calc.endswith("OUTCOME"):
+            fails.check(NO_DEAL not in desc, "%s says #N/A for no deal but cannot give it"
+                        % calc)
+        fails.check("defect" not in desc.lower(), "%s: the description speaks of a defect"
+                    % calc)
+    # 3. the caution once, in the extension's description only
     text = blobs["description-en.txt"].decode("utf-8")
     fails.check(text.count(CAUTION) == 1, "the extension's description states the caution "
                 "%d times" % text.count(CAUTION))
-    for _, desc, _ in wiz.values():
-        fails.check(CAUTION not in desc, "a function repeats the caution: " + desc[:40])
-    print("%s: %d functions, none diagnostic" % (os.path.basename(oxt), len(wiz)))
+    for calc, (_, desc, _) in names.items():
+        fails.check(CAUTION not in desc, "%s repeats the caution" % calc)
+    print("%s: %d functions, none diagnostic; %d say #N/A for no deal" % (
+        os.path.basename(oxt), len(wiz), len(expected)))
 
 
 def main():
