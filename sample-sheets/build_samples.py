@@ -112,7 +112,7 @@ def synergy_results(s):
               % (c, c), "CtoMoney")
         s.put(c + "35", "=DEALFACTOR($B$8;%s14;$B$10)" % c, "CtoFactor")
         s.put(c + "36", "=DEALFACTOR(%s13;%s14;$B$10)" % (c, c), "CtoFactor")
-    # the identity beside the two rows it joins (BRW 1986; REFERENCE s.10)
+    # the identity beside the two rows it joins (BRW 1986; docs/models/complete-information.md s.10)
     s.merged("E22:E26", '=IF(COUNTIF(B26:D26;"none")=0;"";"Rows 23 and 24 are equal '
              'by the model where no walk-away binds ("&COUNTIF(B26:D26;"none")&" of 3 '
              'here): the responder is offered exactly what waiting is worth, so what we '
