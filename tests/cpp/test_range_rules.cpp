@@ -1,6 +1,7 @@
 // The rules of share_range that do not depend on the model: reproducibility to the bit
-// across thread counts (REFERENCE-PRIVATE C.7), degenerate ranges equal to fixed inputs
-// (C.7a), invalid input named by index (CATALOGUE "Additions"), the precision cap (C.6),
+// across thread counts (docs/models/ranges.md, "Reproducibility"), degenerate ranges equal
+// to fixed inputs ("Input distributions"), invalid input named by index ("Inputs,
+// options, outputs"), the precision cap ("Estimators and error bars"),
 // and the probabilities counted over draws, against values computed by hand.
 #include <catch2/catch.hpp>
 
@@ -51,7 +52,7 @@ TEST_CASE("Range rules: bit-identical results for 1, 2, 3 and 16 threads", "[ran
 }
 
 TEST_CASE("Range rules: a degenerate range equals the fixed input, bit for bit", "[range]") {
-    // C.7a: low = high is a constant that keeps its dimension.
+    // low = high is a constant that keeps its dimension ("Inputs, options, outputs").
     const RangeOptions o = options({0.1, 0.5, 0.9}, 3, 9, 11);
     std::vector<RangeArg> a = args_d5();
     a[4] = fixed(0.2);
@@ -133,7 +134,7 @@ TEST_CASE("Range rules: invalid ranges and options are named by index", "[range]
 }
 
 TEST_CASE("Range rules: precision not reached is a status, with every estimate", "[range]") {
-    // Six digits of a quantile need far more than 2^10 points per replicate (C.6).
+    // Six digits of a quantile need far more than 2^10 points per replicate.
     RangeOptions o = options({0.1, 0.5, 0.9}, 1, 8, 10);
     o.digits = 6;
     const RangeOut out = run(model_d5, args_d5(), o);
@@ -217,12 +218,14 @@ TEST_CASE("Range estimators: type-7 quantiles, pooled selection, t quantiles", "
     CHECK(std::signbit(all[3]));  // totalOrder: -0 before +0
     CHECK_FALSE(std::signbit(all[5]));
     // t_{nu, 0.975}: 12.7062 (nu = 1), 2.2281 (nu = 10) from standard t tables (from
-    // memory); 2.13145 (nu = 15) from REFERENCE-PRIVATE C.4.
+    // memory); 2.13145 (nu = 15) as in docs/models/ranges.md, "Estimators and error bars"
+    // (the table in t_quantiles.inc is computed by mpmath).
     CHECK(t975(1) == Approx(12.7062).epsilon(1e-5));
     CHECK(t975(10) == Approx(2.2281).epsilon(1e-4));
     CHECK(t975(15) == Approx(2.13145).epsilon(1e-6));
     CHECK(std::isnan(t975(0)));
-    // Digit target: half a unit of the third significant digit of 0.367 is 5e-4 (C.6).
+    // Digit target: half a unit of the third significant digit of 0.367 is 5e-4
+    // ("Estimators and error bars").
     CHECK(digit_tolerance(0.367, 3) == Approx(5e-4).epsilon(1e-15));
     CHECK(digit_tolerance(36.7, 3) == Approx(0.05).epsilon(1e-15));
     CHECK(digits_reached(0.367, 4.9e-4) == 3);

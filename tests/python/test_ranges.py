@@ -2,7 +2,8 @@
 results, the error policy, and checks against sources outside the ranges engine.
 
 Sources named beside each check:
-* the share is monotone in each rate (REFERENCE-PRIVATE C.8.3; Rubinstein 1982), so a
+* the share is monotone in each rate (Rubinstein 1982; docs/models/ranges.md, "The two
+  examples"), so a
   quantile of the share is the share at the input's quantile (its complement for a
   decreasing dependence); the input quantiles come from scipy.stats (uniform, triang,
   beta with the Beta-PERT parameters of Vose 2008 / Malcolm et al. 1959), the share from

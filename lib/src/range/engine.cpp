@@ -203,7 +203,7 @@ bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
     return reached;
 }
 
-// The doubling loop (C.6 of the design notes).
+// The doubling loop (docs/models/ranges.md, "Estimators and error bars": digit target).
 int sample(const Sampler &s, const RangeOptions &opt, RangeOut *o) {
     Reps reps(static_cast<size_t>(opt.replicates));
     for (ReplicateData &d : reps)

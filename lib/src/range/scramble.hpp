@@ -6,7 +6,7 @@
 // tree of independent fair coins.  Here each coin is a hash of its tree node, keyed by
 // seed, replicate and dimension (in the spirit of Burley 2020), so that nothing is stored
 // and any point can be generated alone.  The exact rule (docs/models/ranges.md, "The
-// generator", step 3 and 4; REFERENCE-PRIVATE C.3 of the design notes):
+// generator", steps 3 and 4):
 //   mix64(z): z = (z ^ z>>30) * 0xBF58476D1CE4E5B9; z = (z ^ z>>27) * 0x94D049BB133111EB;
 //             return z ^ z>>31                       (SplitMix64 finaliser, Steele et al. 2014)
 //   G = 0x9E3779B97F4A7C15
