@@ -3,8 +3,9 @@
 
   PYTHONPATH=. .venv/bin/python tests/bench/addin_bench.py --profile DIR [--rows 100000] [--repeat 3]
 
-DIR is a LibreOffice profile with the add-in installed (scripts/install-addin.sh
---profile DIR).  Start-up is timed apart; every figure below is the best of
+DIR is a LibreOffice profile with the add-in's test build installed, which alone has
+DEALCALLPROBE (`source scripts/lib.sh && ensure_addin_profile test` makes
+build/addin/profile-test; addin/README.md "Tests and benchmark").  Start-up is timed apart; every figure below is the best of
 --repeat hard recalculations, taken in rounds over the four documents, (XCalculatable.calculateAll) of one document holding
 the inputs and one kind of formula, all measured in this one run:
   native   =(1-B2)/(1-A2*B2)          per row (the Rubinstein share, own opens)
