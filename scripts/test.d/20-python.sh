@@ -9,3 +9,6 @@ say "pip install . (counteroffer Python package)"
 say "pytest tests/python"
 cd "$CTO_ROOT"
 "$CTO_VENV/bin/python" -m pytest -q -p no:cacheprovider tests/python
+# The README's "Python only" command, word for word, in a copy of the tracked files.
+say "the README's Python-only path"
+bash "$CTO_ROOT/tests/install/check-python-only.sh"
