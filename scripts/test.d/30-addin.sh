@@ -9,6 +9,9 @@ ensure_addin_profile
 GEN="$CTO_ADDIN_BUILD/addin/generated"
 PY="$CTO_VENV/bin/python"
 
+say "the .oxt carries the direction numbers' source and licence note"
+/usr/bin/python3 "$CTO_ROOT/tests/install/check-notice.py" "$CTO_OXT"
+
 say "UNO glue: status mapping and argument conversion"
 "$CTO_ADDIN_BUILD/addin/addin_glue_test"
 
