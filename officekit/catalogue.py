@@ -5,9 +5,10 @@ The stored names follow the add-in's stable naming rule (addin/README.md "Stable
 names"; addin/gen/addin_gen.cpp): method "get" + the catalogue name in CamelCase, and
 for a function with several outputs an array form whose Calc name adds OUTCOME and
 whose method adds Outcome.  The functions that are not catalogue rows are the
-add-in's call-overhead probe DEALCALLPROBE (getCallProbe), with DEALSHARE's argument
-shape (two required, two optional arguments), DEALREASON, and the range and offer-path
-functions of NON_CATALOGUE (their stored names only: methods()).
+call-overhead probe DEALCALLPROBE (getCallProbe) of the add-in's test build only
+(counteroffer-test.oxt; the shipped extension has no such function), with DEALSHARE's
+argument shape (two required, two optional arguments), DEALREASON, and the range and
+offer-path functions of NON_CATALOGUE (their stored names only: methods()).
 """
 import collections
 
@@ -54,7 +55,8 @@ PROBE = Function("DEALCALLPROBE", "getCallProbe", "call_probe",
 
 
 def functions(probe=True):
-    """Every Calc function of the add-in, in the add-in's order."""
+    """Every Calc function of the add-in, in the add-in's order; with probe (the
+    default), also the test build's DEALCALLPROBE."""
     out = []
     for row in _core.catalogue():
         if not row["calc_name"]:  # served in Calc by another function (trade_probability)

@@ -112,7 +112,7 @@ def synergy_results(s):
               % (c, c), "CtoMoney")
         s.put(c + "35", "=DEALFACTOR($B$8;%s14;$B$10)" % c, "CtoFactor")
         s.put(c + "36", "=DEALFACTOR(%s13;%s14;$B$10)" % (c, c), "CtoFactor")
-    # the identity beside the two rows it joins (BRW 1986; REFERENCE s.10)
+    # the identity beside the two rows it joins (BRW 1986; docs/models/complete-information.md s.10)
     s.merged("E22:E26", '=IF(COUNTIF(B26:D26;"none")=0;"";"Rows 23 and 24 are equal '
              'by the model where no walk-away binds ("&COUNTIF(B26:D26;"none")&" of 3 '
              'here): the responder is offered exactly what waiting is worth, so what we '
@@ -274,6 +274,12 @@ LIC_NOTES = [
     "(DEALDEADLINE): Ståhl (1972) Bargaining Theory; Gibbons (1992) Game Theory for "
     "Applied Economists s.2.1.D. The last proposer keeps the value less the responder's "
     "deadline payoff.",
+    "Odd or even number of offers: whoever can make the last offer before the deadline "
+    "holds an ultimatum and takes (nearly) all that is left, so one offer more or fewer "
+    "hands that advantage to the other side and the split jumps between odd and even "
+    "counts (Ståhl 1972). This is the model's timing convention, not a forecast that one "
+    "more round of talks moves the split: show the band between two consecutive counts "
+    "(the round table has them), not one of them.",
     "Breakdown risk enters as the survival-weighted factor (1 - p) x factor; this is exact "
     "when a breakdown leaves neither side anything from this licence (Binmore, Rubinstein "
     "& Wolinsky 1986 RAND J. Econ. 17(2); Muthoo 1999 ch. 4). No-deadline comparison: the "

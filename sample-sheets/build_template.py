@@ -63,6 +63,11 @@ NOTES = [
     "Expected loss from one round of delay (DEALDELAYCOST; Muthoo 1999 ch. 4); first-mover "
     "advantage: our share opening minus responding (Rubinstein 1982; Muthoo 1999 ch. 3); "
     "per-round factor (1 + rate)^(-days/365) (DEALFACTOR; Muthoo 1999 s.3.2).",
+    "No deadline is modelled here. With a fixed number of offers before a deadline "
+    "(DEALDEADLINE; the licence_deadline sample) the split jumps between odd and even "
+    "counts of offers, because whoever can make the last offer takes (nearly) all that is "
+    "left (Ståhl 1972): a timing convention of that model, not a forecast; show the band "
+    "between two consecutive counts.",
     "Muthoo (1999): Bargaining Theory with Applications, Cambridge University Press.",
 ]
 

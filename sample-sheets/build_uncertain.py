@@ -122,8 +122,9 @@ def swing_table(s):
         "DEALSWING(%s)" % range_args())
     for k in range(n):
         r = SORTED + k
-        # LEFT(..; LEN): a plain comparison with the array's text cell is FALSE in
-        # Calc 7.4 here although the texts print alike
+        # LEFT(..; LEN): a plain comparison with a text cell of an add-in's array is
+        # FALSE in Calc 7.4 although the texts print alike (addin/README.md, "Words in
+        # outcome arrays"); a text that passes through a function compares as expected
         lookup = ";".join('LEFT(B%d;%d)="%s";"%s"' % (r, len(key), key, word)
                           for key, word in LABELS.items())
         s.put("A%d" % r, "=IFS(%s;1;B%d)" % (lookup, r))

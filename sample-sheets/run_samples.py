@@ -26,7 +26,8 @@ import share
 from officekit.office import CSV, PDF, SERVICE, Office, prop, url
 
 # Calc's CSV filter: comma, double quote, UTF-8 (76), from line 1, full precision
-# (not "as shown"), formulas as results (STYLE.md s.6).
+# (not "as shown"), formulas as results (LibreOffice's CSV filter option string, tokens
+# 9 and 10; from memory).
 CSV_OPTIONS = "44,34,76,1,,0,false,true,false,false,false"
 ERROR_RESULT = 4  # com.sun.star.sheet.FormulaResult.ERROR
 OK_TEXT = "every input filled"  # the sheets' input check (layout.py)

@@ -62,19 +62,35 @@ build_core() {
   cmake --build "$dir" -j "$(nproc)"
 }
 
-# ensure_addin_profile: the Calc add-in built into $CTO_BUILD/addin (incremental) and
-# installed into one private LibreOffice profile, $CTO_BUILD/addin/profile, which every
-# sheet tool shares.  Sets CTO_ADDIN_BUILD, CTO_OXT and CTO_PROFILE.  Idempotent: the
-# profile is made afresh only when the .oxt differs from the one installed (a checksum
-# beside the profile), so the test parts and the main job install it once.  Every
-# office starts on a private copy of it (officekit/office.py), so they may run at once.
+# ensure_addin_profile [test]: the Calc add-in built into $CTO_BUILD/addin (incremental)
+# and installed into a private LibreOffice profile which every sheet tool shares.
+# Without an argument: the shipped extension (counteroffer.oxt, the user functions only,
+# what users and the main job get) in $CTO_BUILD/addin/profile.  With "test": the test
+# build (counteroffer-test.oxt, which adds the diagnostic DEALCALLPROBE that the sheet
+# tests, the hostile sheet and the add-in benchmark call) in $CTO_BUILD/addin/profile-test.
+# Sets CTO_ADDIN_BUILD, CTO_ADDIN_GEN (its generated sources), CTO_OXT and CTO_PROFILE.
+# Idempotent: a profile is made afresh only when its .oxt differs from the one installed
+# (a checksum beside the profile), so the test parts and the main job install it once.
+# Every office starts on a private copy of it (officekit/office.py), so they may run at
+# once.
 ensure_addin_profile() {
+  local variant="${1:-shipped}"
   ensure_apt "${CTO_APT_PACKAGES[@]}"
   CTO_ADDIN_BUILD="$CTO_BUILD/addin"
-  CTO_OXT="$CTO_ADDIN_BUILD/addin/counteroffer.oxt"
-  CTO_PROFILE="$CTO_ADDIN_BUILD/profile"
-  say "the Calc add-in ($CTO_ADDIN_BUILD)"
+  say "the Calc add-in ($CTO_ADDIN_BUILD, $variant build)"
   build_core "$CTO_ADDIN_BUILD" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_ADDIN=ON
+  case "$variant" in
+    shipped)
+      CTO_ADDIN_GEN="$CTO_ADDIN_BUILD/addin/generated"
+      CTO_OXT="$CTO_ADDIN_BUILD/addin/counteroffer.oxt"
+      CTO_PROFILE="$CTO_ADDIN_BUILD/profile" ;;
+    test)
+      cmake --build "$CTO_ADDIN_BUILD" -j "$(nproc)" --target counteroffer_test_oxt
+      CTO_ADDIN_GEN="$CTO_ADDIN_BUILD/addin/test/generated"
+      CTO_OXT="$CTO_ADDIN_BUILD/addin/test/counteroffer-test.oxt"
+      CTO_PROFILE="$CTO_ADDIN_BUILD/profile-test" ;;
+    *) die "ensure_addin_profile: unknown build '$variant' (give none, or test)" ;;
+  esac
   [ -f "$CTO_OXT" ] || die "the add-in package was not built: $CTO_OXT"
   local want stamp="$CTO_PROFILE.oxt.sha256"
   want="$(sha256sum "$CTO_OXT" | cut -d' ' -f1)"

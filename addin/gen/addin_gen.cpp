@@ -2,9 +2,14 @@
 // table (cto_function_count / cto_function_at), so a new catalogue row needs no
 // hand-written add-in code.  The functions that are not catalogue rows (DEALRANGE,
 // DEALRANGEOUTCOME, DEALSWING, DEALOFFERPATH: src/range_args.h) take their arguments'
-// text from the catalogue too; DEALREASON and DEALCALLPROBE are written out here.
+// text from the catalogue too; DEALREASON is written out here.
 //
-//   addin_gen OUTDIR
+//   addin_gen OUTDIR [--test-build]
+//
+// --test-build adds the diagnostic DEALCALLPROBE (the call-overhead probe the sheet
+// tests and the add-in benchmark use).  It is for the test build of the extension
+// (counteroffer-test.oxt) only: the shipped counteroffer.oxt has no such function in
+// its interface, its Function Wizard data or its library (addin/README.md).
 //
 // writes into OUTDIR:
 //   XDealFunctions.idl   the UNO interface and service (one method per function)
@@ -37,7 +42,8 @@ const char *const kService = "org.counteroffer.DealFunctions";
 // extension's description (addin/pkg/description-en.txt), not in every function.
 
 // Every method of the interface: one per catalogue function, one "outcome" form
-// for each function with more than one output, and the call-overhead probe.
+// for each function with more than one output, the functions that are not catalogue
+// rows, and (test build only) the call-overhead probe.
 struct Method {
     std::string method;     // IDL method name, e.g. getShare
     std::string calc;       // Calc display name, e.g. DEALSHARE
@@ -125,6 +131,31 @@ std::string default_text(const cto_arg_info &a) {
     return s.str();
 }
 
+// Whether function f can give "no deal": its statuses name no_deal, or it has the
+// statuses of another function ("as share_from_rates") that does.
+bool no_deal_possible(const cto_function_info *f, int depth = 0) {
+    const std::string st = f && f->statuses ? f->statuses : "";
+    if (st.find("no_deal") != std::string::npos) return true;
+    if (depth > 8 || st.rfind("as ", 0) != 0) return false;
+    size_t end = 3;
+    while (end < st.size() && (std::isalnum(static_cast<unsigned char>(st[end])) || st[end] == '_'))
+        ++end;
+    return no_deal_possible(cto_function_find(st.substr(3, end - 3).c_str()), depth + 1);
+}
+
+// What a cell shows for "no deal", in plain words, for every function that can give it
+// (where #N/A is explained in the Function Wizard; addin/README.md "Error values").
+std::string no_deal_text(const cto_function_info *f) {
+    if (!no_deal_possible(f)) return "";
+    std::string s = " Shows #N/A when no deal is rational for both sides (DEALREASON says why";
+    if (f->n_outputs > 1 && f->calc_name && *f->calc_name)
+        s += std::string("; ") + f->calc_name + "OUTCOME shows the values without a deal";
+    return s + ").";
+}
+const char *const kNoDealOutcomeText =
+    " A case with no rational deal still fills its row: the values without a deal, and "
+    "#VALUE! in a column that has no value without one.";
+
 // The method of catalogue function f, with its arguments' Function Wizard text.
 // "binding (none, ours, theirs or both)": an output and, when it is coded, its words.
 std::string output_legend(const cto_function_info *f, int k) {
@@ -139,12 +170,17 @@ std::string output_legend(const cto_function_info *f, int k) {
     return s + ")";
 }
 
-// What the cell shows: the summary, and the first output when the function has several.
+// What the cell shows: the summary, and the first output when the function has several
+// (its help up to a ";": what follows is the no-deal case, which the cell shows as #N/A
+// and the outcome form as values, see no_deal_text).
 std::string returns_text(const cto_function_info *f) {
     std::string s = sentence(f->summary ? f->summary : "") + ".";
-    if (f->n_outputs > 1)
-        s += " Returns " + std::string(f->outputs[0].name) + ": " + f->outputs[0].help +
+    if (f->n_outputs > 1) {
+        std::string help = f->outputs[0].help ? f->outputs[0].help : "";
+        if (no_deal_possible(f)) help = help.substr(0, help.find(';'));
+        s += " Returns " + std::string(f->outputs[0].name) + ": " + help +
              " (the whole outcome: " + f->calc_name + "OUTCOME).";
+    }
     return s;
 }
 
@@ -172,7 +208,8 @@ Method catalogue_method(const cto_function_info *f) {
     Method m;
     m.method = "get" + camel(f->name);
     m.calc = f->calc_name;
-    m.desc = returns_text(f) + " Source: " + (f->source ? f->source : "") + ".";
+    m.desc = returns_text(f) + no_deal_text(f) +
+             " Source: " + (f->source ? f->source : "") + ".";
     m.category = "Financial";
     m.id = f->id;
     m.outcome = false;
@@ -189,14 +226,15 @@ Method outcome_method(const cto_function_info *f, const Method &m) {
     for (int k = 0; k < f->n_outputs; ++k) outs += std::string(k ? ", " : "") + output_legend(f, k);
     o.desc = sentence(f->summary ? f->summary : "") +
              "; array form, one row per case with the columns " + outs +
-             " (enter as a matrix formula). Source: " + (f->source ? f->source : "") + ".";
+             " (enter as a matrix formula)." + (no_deal_possible(f) ? kNoDealOutcomeText : "") +
+             " Source: " + (f->source ? f->source : "") + ".";
     o.outcome = true;
     return o;
 }
 
-// The call-overhead probe, with the argument shape of DEALSHARE (two required, two
-// optional), so that comparing the two measures the add-in's own work and not Calc's
-// cost per parameter.
+// The call-overhead probe (test build only), with the argument shape of DEALSHARE (two
+// required, two optional), so that comparing the two measures the add-in's own work and
+// not Calc's cost per parameter.
 Method probe_method() {
     Method probe;
     probe.method = "getCallProbe";
@@ -327,7 +365,8 @@ bool swing_method(Method &m) {
     m.desc = "One-at-a-time swing of each uncertain input (a tornado): an array, a row per "
              "uncertain input, largest swing first, with the columns input name, own share at "
              "its low, own share at its high (the other inputs at their modes; enter as a matrix "
-             "formula). It ignores interactions, which DEALRANGE includes. Source: one-way "
+             "formula). It ignores interactions, which DEALRANGE includes. An end without a "
+             "rational deal shows #N/A. Source: one-way "
              "sensitivity, Howard (1988), Clemen & Reilly (2014) ch.5; the model: Rubinstein "
              "(1982), Muthoo (1999) chs.3-6.";
     m.category = "Financial";
@@ -350,7 +389,8 @@ bool offer_path_method(Method &m) {
              "columns round, offer, cutoff, probability of agreement in that round, probability "
              "of agreement by that round (at most " +
              std::to_string(cto_addin::kOfferPathMaxRows) +
-             " rows: the first rounds; enter as a matrix formula). Source: " +
+             " rows: the first rounds; enter as a matrix formula)." +
+             no_deal_text(f) + " Source: " +
              std::string(f->source ? f->source : "") + ".";
     m.category = "Financial";
     m.id = -1;
@@ -360,7 +400,7 @@ bool offer_path_method(Method &m) {
     return true;
 }
 
-std::vector<Method> collect() {
+std::vector<Method> collect(bool test_build) {
     std::vector<Method> ms;
     const size_t n = cto_function_count();
     for (size_t i = 0; i < n; ++i) {
@@ -376,7 +416,7 @@ std::vector<Method> collect() {
         !swing_method(swing) || !offer_path_method(path))
         return {};
     for (Method *m : {&range, &range_outcome, &swing, &path}) ms.push_back(*m);
-    ms.push_back(probe_method());
+    if (test_build) ms.push_back(probe_method());
     ms.push_back(reason_method());
     return ms;
 }
@@ -497,15 +537,16 @@ std::string make_list(const std::vector<Method> &ms) {
 } // namespace
 
 int main(int argc, char **argv) {
-    if (argc != 2) {
-        std::cerr << "usage: addin_gen OUTDIR\n";
+    const bool test_build = argc == 3 && std::string(argv[2]) == "--test-build";
+    if (argc != 2 && !test_build) {
+        std::cerr << "usage: addin_gen OUTDIR [--test-build]\n";
         return 2;
     }
     if (cto_version_number() != CTO_VERSION_NUMBER) {
         std::cerr << "addin_gen: library version differs from the header\n";
         return 1;
     }
-    const std::vector<Method> ms = collect();
+    const std::vector<Method> ms = collect(test_build);
     if (ms.size() < 2) {
         std::cerr << "addin_gen: the catalogue table is empty\n";
         return 1;

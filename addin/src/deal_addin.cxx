@@ -363,7 +363,9 @@ class DealFunctions
         return guarded([&] { return offer_path_rows(table_, args); });
     }
 
-    // DEALCALLPROBE: the same argument conversion as every function, no model.
+#ifdef CTO_ADDIN_TEST_BUILD
+    // DEALCALLPROBE, in the test build of the extension only (counteroffer-test.oxt,
+    // addin_gen --test-build): the same argument conversion as every function, no model.
     css::uno::Any probe(const Arg *args) {
         try {
             static const cto_arg_info kNumber = {"value", "Value", "", CTO_ARG_REAL, 0, 0.0, 0,
@@ -391,6 +393,7 @@ class DealFunctions
             throw css::uno::RuntimeException("counteroffer: unexpected failure");
         }
     }
+#endif
 };
 
 #include "deal_methods_def.inc"

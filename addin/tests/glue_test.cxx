@@ -8,7 +8,8 @@
 // exceptions and codes are the mapping documented in addin/README.md, with Calc's error
 // numbers from LibreOffice 7.4 include/formula/errorcodes.hxx (IllegalArgument 502,
 // IllegalFPOperation 503, NoValue 519, NoConvergence 523, NotAvailable 0x7fff) and the
-// exception-to-error rules of ScUnoAddInCall::ExecuteCallWithArgs (STYLE.md s.1).
+// exception-to-error rules of ScUnoAddInCall::ExecuteCallWithArgs (LibreOffice 7.4
+// sc/source/core/tool/addincol.cxx; from memory).
 #include "../src/deal_addin.cxx"
 
 #include <algorithm>
@@ -162,7 +163,7 @@ void check_scalars(const rtl::Reference<DealFunctions> &f) {
           "no convergence -> NoConvergenceException (Err:523)");
     check(scalar(*f, v, CTO_E_INTERNAL) == Outcome::Runtime, "internal -> RuntimeException (#VALUE!)");
     check(scalar(*f, v, 9) == Outcome::Runtime, "a non-finite ok value is never shown as a number");
-    // Conversion (CATALOGUE.md "Types across the surfaces").
+    // Conversion (docs/reference/functions.md, "Conventions": types on each surface).
     check(scalar(*f, css::uno::Any(), CTO_OK) == Outcome::Illegal, "VOID required -> invalid");
     check(scalar(*f, css::uno::Any(OUString("0.5")), CTO_OK) == Outcome::Illegal,
           "text where a number is needed -> invalid");

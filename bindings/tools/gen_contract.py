@@ -33,7 +33,8 @@ CALC_STATUS = {  # what the Calc add-in shows for each status (addin/README.md)
     "no_deal": "#N/A",
     "indeterminate": "#NUM! (Err:503)",
     "no_convergence": "Err:523",
-    "internal": "#VALUE!",
+    "internal": "#VALUE! (Calc shows it too, on its own, for an argument it cannot pass, "
+                "e.g. a range holding an error cell)",
 }
 
 HEAD = """\

@@ -75,9 +75,8 @@ def addin_functions(functions: List[Function]) -> str:
                 "cutoff, probability in that round, by that round (see \"DEALOFFERPATH\") |")
     rows.append("| DEALREASON | getReason | why a DEAL function gives its result, in words: the "
                 "function's name, then its arguments (see \"Why a cell fails\") |")
-    rows.append("| DEALCALLPROBE | getCallProbe | diagnostic (category Add-In): returns its first "
-                "argument after the usual conversion; has the argument shape of DEALSHARE (two "
-                "required, two optional) and measures call overhead |")
+    # The diagnostic DEALCALLPROBE is in the test build only (addin/README.md "Tests and
+    # benchmark"), not in the shipped extension this table describes.
     return "\n".join(rows)
 
 

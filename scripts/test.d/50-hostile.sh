@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Hostile input (issue 6, parts 4 and 5):
-#  1. the Calc add-in, in the shared private profile (ensure_addin_profile), recalculates
+#  1. the Calc add-in's test build, in its shared private profile (ensure_addin_profile
+#     test: the sheet calls the diagnostic DEALCALLPROBE too), recalculates
 #     a generated sheet of more than 10,000 DEAL... calls with hostile arguments
 #     headless; every cell is its expected value or error code, a watchdog turns a hang
 #     into a failure, and LibreOffice must exit cleanly (tests/hostile/run_hostile.py);
@@ -9,7 +10,7 @@
 #     and a hypothesis run of hostile inputs over every function (tests/hostile/python).
 source "$(dirname "${BASH_SOURCE[0]}")/../lib.sh"
 ensure_package
-ensure_addin_profile
+ensure_addin_profile test
 PY="$CTO_VENV/bin/python"
 work="$(mktemp -d "${TMPDIR:-/tmp}/cto_hostile_test.XXXXXX")"
 trap 'rm -rf "$work"' EXIT

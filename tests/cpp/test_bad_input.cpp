@@ -1,6 +1,7 @@
-// Every bad-input rule of CATALOGUE.md ("What every function must do with bad input"),
-// for every function and every argument, through the generic entry point and the named
-// C functions.  Source: CATALOGUE.md (the project's contract) and REFERENCE.md s.12.
+// Every bad-input rule of the function contract (docs/reference/functions.md, "Bad input,
+// on each surface"), for every function and every argument, through the generic entry
+// point and the named C functions.  Source: that contract and the edge cases of
+// docs/models/complete-information.md.
 #include <catch2/catch.hpp>
 
 #include <cmath>
@@ -99,7 +100,8 @@ TEST_CASE("cross-argument domain rules name the right argument", "[bad-input]") 
 TEST_CASE("no rational deal gives no_deal and own's no-deal payoff, never the formula",
           "[bad-input]") {
     double v;
-    // Surplus <= 0 (REFERENCE s.12, row 84: the formula would give -0.526).
+    // Surplus <= 0 (docs/models/complete-information.md s.1 edge cases; check value 84 of test_published.cpp:
+    // the formula would give -0.526).
     CHECK(cto_share(0.9, 0.9, -1, 1, &v) == CTO_E_NO_DEAL);
     CHECK(v == 0.0);
     CHECK(cto_share(0.9, 0.9, 0, 1, &v) == CTO_E_NO_DEAL);
@@ -118,7 +120,8 @@ TEST_CASE("no rational deal gives no_deal and own's no-deal payoff, never the fo
     CHECK(v == 0.0);
     CHECK(cto_share_sensitivity(0.1, 0.05, 30, 0, -1, 1, 365, 0, &v) == CTO_E_NO_DEAL);
     CHECK(v == 0.0);
-    // Breakdown without discounting: b_A + b_B >= pie (REFERENCE s.12) -> own's fallback.
+    // Breakdown without discounting: b_A + b_B >= pie (docs/models/complete-information.md s.4) -> own's
+    // fallback.
     CHECK(cto_breakdown_share(1, 1, 0.3, 0.6, 0.5, 1, 1, &v) == CTO_E_NO_DEAL);
     CHECK(v == 0.6);
     // With discounting the no-deal value is the present value of waiting for breakdown:
@@ -215,7 +218,7 @@ TEST_CASE("status names and messages are static, distinct and never NULL", "[sta
     }
     CHECK(std::string(cto_status_name(77)) == "unknown");
     CHECK(cto_status_message(-3) != nullptr);
-    // Pinned values (CATALOGUE.md: only ever appended).
+    // Pinned values (counteroffer.h: status codes are only ever appended).
     STATIC_REQUIRE(CTO_OK == 0);
     STATIC_REQUIRE(CTO_E_INVALID == 1);
     STATIC_REQUIRE(CTO_E_NO_DEAL == 2);

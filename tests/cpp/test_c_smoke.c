@@ -21,7 +21,8 @@ int main(void) {
     size_t i;
     EXPECT(cto_version_number() == CTO_VERSION_NUMBER);
     EXPECT(strcmp(cto_version_string(), CTO_VERSION_STRING) == 0);
-    /* Rubinstein (1982): equal factors 0.5, opener gets 1/(1+d) = 2/3 (REFERENCE row 9). */
+    /* Rubinstein (1982): equal factors 0.5, opener gets 1/(1+d) = 2/3 (check value 9 of
+       test_published.cpp). */
     EXPECT(cto_share(0.5, 0.5, 1.0, 1, &v) == CTO_OK);
     EXPECT(fabs(v - 2.0 / 3.0) < 1e-15);
     EXPECT(cto_share(0.5, 0.5, 1.0, 1, NULL) == CTO_E_INVALID);

@@ -78,8 +78,8 @@ TEST_CASE("issue 10 worked case: the opener walks away only one round on", "[com
 }
 
 TEST_CASE("breakdown certain: an opener's walk-away value above the surplus is never used", "[combined]") {
-    // p = 1: any rejection ends the talks with the fallbacks (REFERENCE s.12: ultimatum
-    // with breakdown payoffs), so the opener never answers an offer: its offer S - b_B
+    // p = 1: any rejection ends the talks with the fallbacks (docs/models/complete-information.md s.4:
+    // an ultimatum with breakdown payoffs), so the opener never answers an offer: its offer S - b_B
     // beats its fallback b_A, a deal.  Derived from the game (docs/models/combined.md).
     int st;
     const SolveOut o = run({0.9, 0.8, 1.0, 0.1, 0.2, 0, 0, 5.0, -INFINITY, 1, true}, &st);
@@ -113,7 +113,7 @@ TEST_CASE("delay losses and opening advantage equal two solve calls", "[combined
     // d_i V_i']] with V' the payoffs of the game the other side opens; advantage = own's
     // payoff opening minus responding.  Without options, breakdown and status quo the
     // opener's loss is x (1 - d_open^2) and the advantage Rubinstein's first-mover
-    // advantage S (1-d_A)(1-d_B)/(1 - d_A d_B) (REFERENCE s.10).
+    // advantage S (1-d_A)(1-d_B)/(1 - d_A d_B) (docs/models/complete-information.md s.10).
     for (int i = 0; i < 5000; ++i) {
         SolveIn in{uni(0, 1), uni(0, 1), i % 3 ? uni(0, 1) : 0.0, uni(-0.3, 0.5), uni(-0.3, 0.5),
                    uni(-0.3, 0.5), uni(-0.3, 0.5), i % 4 ? uni(-0.5, 1.2) : -INFINITY,
@@ -142,7 +142,7 @@ TEST_CASE("delay losses and opening advantage equal two solve calls", "[combined
     }
     int st;
     const SolveOut r = run({0.8, 0.8, 0, 0, 0, 0, 0, -INFINITY, -INFINITY, 1, true}, &st);
-    CHECK(r.opening_advantage == Approx(1.0 / 9.0).epsilon(1e-15));    // REFERENCE s.10 example
+    CHECK(r.opening_advantage == Approx(1.0 / 9.0).epsilon(1e-15));    // complete-information.md s.10 example
     CHECK(r.own_delay_loss == Approx((1 - 0.64) / 1.8).epsilon(1e-15));  // (1 - d^2) x*, x* = 1/1.8
     CHECK(r.other_delay_loss == 0.0);
 }

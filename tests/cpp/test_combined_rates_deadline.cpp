@@ -1,7 +1,7 @@
 // solve_rates and deadline_share_breakdown against independent computations:
 // backward induction round by round in quad precision (libquadmath, 113 bits), written
-// from the rules of the deadline game (REFERENCE s.3, Stahl 1972; breakdown timing of
-// REFERENCE s.4.2, BRW 1986, Muthoo 1999 ch.4), and the factors from rates
+// from the rules of the deadline game (docs/models/complete-information.md s.3, Stahl 1972; breakdown
+// timing of its s.4, BRW 1986, Muthoo 1999 ch.4), and the factors from rates
 // (Muthoo 1999 s.3.2, delta = exp(-r Delta)) evaluated in quad precision.
 #include <catch2/catch.hpp>
 
@@ -67,7 +67,8 @@ TEST_CASE("deadline_share_breakdown with p = 0 is deadline_share bit for bit", "
 }
 
 TEST_CASE("deadline_share_breakdown against quad-precision backward induction", "[deadline][combined]") {
-    // Source of the game: REFERENCE s.3 (Stahl 1972) with the breakdown of s.4.2.
+    // Source of the game: docs/models/complete-information.md s.3 (Stahl 1972) with the breakdown of
+    // its s.4.
     double worst = 0;
     int deals = 0, nodeals = 0;
     for (int i = 0; i < 3000; ++i) {
@@ -99,7 +100,8 @@ TEST_CASE("deadline_share_breakdown against quad-precision backward induction", 
 
 TEST_CASE("deadline_share: a share that is S (1 - d) keeps its relative accuracy", "[deadline][accuracy]") {
     // The issue's case: two rounds, the other side makes the last offer and takes S; own
-    // offers it d S first and keeps S (1 - d) (REFERENCE s.3 backward induction).
+    // offers it d S first and keeps S (1 - d) (backward induction, docs/models/complete-information.md
+    // s.3).
     double v;
     int bad;
     REQUIRE(cto::core::deadline_share(0.11440739460887106, 0.99999999, 2, 0, 0,

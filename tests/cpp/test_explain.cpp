@@ -121,7 +121,7 @@ TEST_CASE("output words: solve's binding and rational codes", "[explain]") {
 
 TEST_CASE("explain: no deal for a result without a value without a deal", "[explain]") {
     // A seller whose cost (2) is above every value the buyer may have ([0, 1]): no type
-    // gains (REFERENCE-PRIVATE B.6), and the opening offer has no value.
+    // gains (docs/models/private-information.md s.2.6), and the opening offer has no value.
     const Reason r = explain("opening_offer", {0, 1, 0.9, 0.9, 2, 2, 0});
     CHECK(r.status == CTO_E_NO_DEAL);
     CHECK(r.text.find("without a deal this result has no value") != std::string::npos);

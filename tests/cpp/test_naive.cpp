@@ -1,6 +1,6 @@
 // Where the naive formula loses digits and the library does not.  The reference is the
 // same formula evaluated in 113-bit quadruple precision (libquadmath), an arithmetic
-// independent of the library's double-precision expm1 forms.  REFERENCE.md s.12: at
+// independent of the library's double-precision expm1 forms.  docs/models/complete-information.md s.1: at
 // Delta = 1e-12 the naive formula is off by about 2.5e-4.
 #include <catch2/catch.hpp>
 
@@ -28,7 +28,7 @@ double naive_share(double ra, double rb, double days) {
 TEST_CASE("share from rates: the naive formula loses digits, the library keeps them",
           "[accuracy]") {
     std::printf("%14s %14s %14s\n", "days", "naive rel err", "library rel err");
-    const double ra = 0.10, rb = 0.05;  // REFERENCE rows 10-13
+    const double ra = 0.10, rb = 0.05;  // check values 10-13 (test_published.cpp)
     double worst_lib = 0, worst_naive = 0;
     for (double days : {365.0, 30.0, 1.0, 1.0 / 24, 1.0 / 1440, 1.0 / 86400, 1e-9, 1e-12}) {
         const double ref = quad_share(ra, rb, days);

@@ -1,7 +1,7 @@
 // Repeated offers through the C ABI: the rows entry point, the totals-only entry point and
 // the scalar functions agree with each other; the two-round case against the 50-digit
 // reference row of tests/reference/private/offer_path.csv (backward induction by first-
-// order conditions, REFERENCE-PRIVATE B.2: P(agreement) = 15/26, opening offer
+// order conditions; docs/models/private-information.md s.2.2: P(agreement) = 15/26, opening offer
 // 0.465384615..., E[round | agreement] = 1.7333...).
 #include <catch2/catch.hpp>
 

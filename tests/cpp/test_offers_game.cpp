@@ -1,9 +1,10 @@
 // Repeated offers checked against the game itself:
 //  - responders choose their best round: for 400,000 types on a midpoint grid, each type
 //    compares d_r^(t-1) x (its gain at the offer of round t) over the computed path and
-//    agrees in its best round (indifferent types agree; the method of the design
-//    reference's Monte Carlo over buyer types, REFERENCE-PRIVATE D.B, on a grid instead of
-//    random draws); the shares per round, the agreement probability, the expected round
+//    agrees in its best round (indifferent types agree; the method of the Monte Carlo
+//    over buyer types that confirmed the check values of test_offers_published.cpp, on a
+//    grid instead of random draws); the shares per round, the agreement probability, the
+//    expected round
 //    and both values must match the library's totals;
 //  - the offerer's best response in the two-round game, solved by brute force in the
 //    mirror case's own terms (a buyer offering to sellers of unknown cost: the marginal
@@ -116,7 +117,7 @@ double procurement_value(double lo, double hi, double dof, double dr, double u, 
 }  // namespace
 
 TEST_CASE("Responders choose their best round on the computed path", "[offers]") {
-    check_choice(0, 1, 0.9, 0.9, 5, 0, kOffererSeller);        // B.7.1 F6-F10
+    check_choice(0, 1, 0.9, 0.9, 5, 0, kOffererSeller);        // check values F6-F10
     check_choice(10, 110, 0.9, 0.7, 6, 30, kOffererSeller);    // F18-F21, c > v_lo
     check_choice(0, 1, 0.9, 0.9, 0, 0, kOffererSeller);        // no deadline
     check_choice(0, 1, 0.95, 0.8, 12, 0, kOffererSeller);

@@ -1,11 +1,13 @@
-// Repeated offers, the gap case (every type is worth serving): the check values of the
-// design reference REFERENCE-PRIVATE B.4 and B.7.3-B.7.4 (15 digits, confirmed there by
-// 50-digit stagewise maximisation and Monte Carlo over buyer types), its closed forms
-// (immediate sale below K1*, the two-round formulas), the non-monotone deadline effect,
+// Repeated offers, the gap case (every type is worth serving; sections s.2.x are those of
+// docs/models/private-information.md): check values (the deadline table of s.2.4, rows G1-G16
+// with a deadline and J1-J19 without; 15 digits, from the exact piecewise algorithm,
+// confirmed by 50-digit stagewise direct maximisation of each stage's objective and by a
+// Monte Carlo of 4 x 10^6 buyer types choosing their best round), the closed forms of
+// s.2.4 (immediate sale below K1*, the two-round formulas), the non-monotone deadline effect,
 // and a one-shot-deviation test of the offerer's first offer against subgames solved by
 // separate calls (subgame perfection: Fudenberg & Tirole 1991 ch. 10, from memory).
 // Sources of the model: Fudenberg, Levine & Tirole (1985); Gul, Sonnenschein & Wilson
-// (1986) (from memory, as in the reference).
+// (1986) (from memory).
 #include <catch2/catch.hpp>
 
 #include <algorithm>
@@ -45,7 +47,7 @@ Path seller(double lo, double hi, double ds, double db, int64_t T, double c, int
 
 }  // namespace
 
-TEST_CASE("Gap case, deadline effect table of B.4 (d = 0.9, v in [0.2, 1.2], c = 0)", "[offers][published]") {
+TEST_CASE("Gap case, deadline effect table (d = 0.9, v in [0.2, 1.2], c = 0)", "[offers][published]") {
     struct Row {
         int64_t T, used;
         double p1, agree, value;
@@ -71,12 +73,12 @@ TEST_CASE("Gap case, deadline effect table of B.4 (d = 0.9, v in [0.2, 1.2], c =
         CHECK_REL(p.t.agreement_probability, r.agree, k15);
         CHECK_REL(p.t.offerer_value, r.value, k15);
     }
-    // The deadline effect is not monotone (D.D item 4): p_1 falls from T = 1 to 6, jumps
+    // The deadline effect is not monotone (s.2.4): p_1 falls from T = 1 to 6, jumps
     // at T = 11 and falls again at 12.
     CHECK(seller(0.2, 1.2, 0.9, 0.9, 11, 0).t.opening_offer > seller(0.2, 1.2, 0.9, 0.9, 6, 0).t.opening_offer);
 }
 
-TEST_CASE("Gap case, finite deadline: B.7.3 rows G1-G16", "[offers][published]") {
+TEST_CASE("Gap case, finite deadline: check values G1-G16", "[offers][published]") {
     CHECK_REL(seller(0.6, 1.0, 0.9, 0.9, 1, 0).t.opening_offer, 0.6, 1e-15);  // G2: sell to all
     Path p = seller(0.2, 1.2, 0.9, 0.9, 2, 0);
     CHECK_REL(p.rows[0].round_probability, 0.184615384615385, k15);  // G4
@@ -95,7 +97,7 @@ TEST_CASE("Gap case, finite deadline: B.7.3 rows G1-G16", "[offers][published]")
     CHECK_REL(p.t.responder_value, 0.186986750270568, k15);        // G16
 }
 
-TEST_CASE("Gap case, no deadline: B.7.4 rows J1-J19 and the path of J8", "[offers][published]") {
+TEST_CASE("Gap case, no deadline: check values J1-J19 and the path of J8", "[offers][published]") {
     Path p = seller(0.2, 1.2, 0.9, 0.9, 0, 0);
     CHECK(p.t.stages == 5);  // J1: N = 5
     CHECK_REL(p.t.expected_round, 1.84819838937084, k15);  // J3
@@ -136,7 +138,7 @@ TEST_CASE("Gap case, no deadline: B.7.4 rows J1-J19 and the path of J8", "[offer
     CHECK_REL(p.t.offerer_value, 0.357717298869526, k15);  // J19
 }
 
-TEST_CASE("Gap case closed forms of B.4: immediate sale and two rounds", "[offers]") {
+TEST_CASE("Gap case closed forms of s.2.4: immediate sale and two rounds", "[offers]") {
     // Immediate sale (no deadline) iff H <= K1* = a (2 - d_b - d_s)/(1 - d_b): then the
     // first offer is v_lo, everyone agrees, seller value v_lo - c, buyer value L/2.
     const double ds = 0.8, db = 0.7, c = 1.0, lo = 1.5;  // a = 0.5, K1* = 0.5 * 0.5 / 0.3
@@ -163,7 +165,7 @@ TEST_CASE("Gap case closed forms of B.4: immediate sale and two rounds", "[offer
     CHECK_REL(p.rows[1].offer, 0.3, 1e-15);
     CHECK_REL(p.rows[0].round_probability, (H - x1) / 0.7, 1e-14);
     CHECK_REL(p.rows[0].round_probability, 0.928571428571429, k15);
-    // A patient buyer (d_b = 1) with no deadline: sell to all at v_lo at once (B.6).
+    // A patient buyer (d_b = 1) with no deadline: sell to all at v_lo at once (s.2.6).
     const Path q = seller(0.3, 1.0, 0.9, 1.0, 0, 0);
     CHECK(q.t.regime == kPathClosed);
     CHECK(q.t.opening_offer == 0.3);
@@ -309,7 +311,7 @@ TEST_CASE("Gap case limits: no convergence with NaN totals; no deal in the mirro
     double x = 0;
     CHECK(opening_offer(0.01, 1, 0.999, 0.9, 0, 0, kOffererSeller, &x, nullptr) == CTO_E_NO_CONVERGENCE);
     CHECK(std::isnan(x));
-    // Buyer offers with every cost at or above the buyer's value: no deal (B.6 mirrored).
+    // Buyer offers with every cost at or above the buyer's value: no deal (s.2.6 mirrored).
     const Path m = seller(2, 3, 0.9, 0.9, 4, 2, kOffererBuyer);
     CHECK(m.status == CTO_E_NO_DEAL);
     CHECK(m.t.agreement_probability == 0.0);

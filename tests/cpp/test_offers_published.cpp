@@ -1,12 +1,17 @@
-// Repeated offers to a responder of unknown value: the check values of the design
-// reference REFERENCE-PRIVATE B.7 (confirmed there by 50-digit numerical backward
-// induction and Monte Carlo over buyer types), the closed forms of B.2 and B.3 kept as an
-// independent code path, the edge cases of B.6 with their statuses, and bad input.
+// Repeated offers to a responder of unknown value (sections s.2.x are those of
+// docs/models/private-information.md): check values F1-F23 (deadline) and I1-I18 (no
+// deadline), 15 digits, from the recursion and closed forms at 50 digits, confirmed by
+// numerical backward induction at 50 digits (Chebyshev collocation of every stage,
+// first-order conditions by root finding; it does not use the recursion), without a
+// deadline by one such stage applied to the stationary solution and by the recursion at
+// T = 3000, and by a Monte Carlo of 4 x 10^6 buyer types choosing their best round on the
+// path; the closed forms of s.2.2 and s.2.3 kept as an independent code path, the edge
+// cases of s.2.6 with their statuses, and bad input.
 //
 // Sources beside each check: Sobel & Takahashi (1983) for the finite-horizon linear
 // equilibrium; Stokey (1981), Gul, Sonnenschein & Wilson (1986) and Fudenberg & Tirole
 // (1991) ch. 10 for the stationary one; Fudenberg, Levine & Tirole (1985) for the gap case
-// (all from memory, as in the reference).  Values print 15 significant digits, so they
+// (all from memory).  Values print 15 significant digits, so they
 // are compared to 5e-15 relative (1e-15 where the value is exact).
 #include <catch2/catch.hpp>
 
@@ -47,7 +52,7 @@ Path seller_path(double lo, double hi, double ds, double db, int64_t T, double c
 
 }  // namespace
 
-TEST_CASE("Offer path, finite deadline, no gap: B.7.1 rows F1-F23", "[offers][published]") {
+TEST_CASE("Offer path, finite deadline, no gap: check values F1-F23", "[offers][published]") {
     Path p = seller_path(0, 1, 0.9, 0.9, 1, 0);  // F1: T = 1, monopoly price (v_hi + c)/2
     CHECK_REL(p.rows[0].offer, 0.5, 1e-15);
     p = seller_path(0, 1, 0.9, 0.9, 2, 0);  // F2-F5
@@ -79,7 +84,7 @@ TEST_CASE("Offer path, finite deadline, no gap: B.7.1 rows F1-F23", "[offers][pu
     CHECK_REL(seller_path(0, 1, 0, 0.9, 4, 0).t.opening_offer, 0.128187500000000, k15);  // F23
 }
 
-TEST_CASE("Offer path, no deadline, no gap: B.7.2 rows I1-I18", "[offers][published]") {
+TEST_CASE("Offer path, no deadline, no gap: check values I1-I18", "[offers][published]") {
     Path p = seller_path(0, 1, 0.9, 0.9, 0, 0);
     REQUIRE(p.status == CTO_OK);
     CHECK(p.t.rounds_used == -1);
@@ -105,11 +110,11 @@ TEST_CASE("Offer path, no deadline, no gap: B.7.2 rows I1-I18", "[offers][publis
     CHECK_REL(p.t.opening_offer, 68.9466384404110, k15);  // I16
     CHECK_REL(p.t.offerer_value, 15.5786553761644, k15);  // I17
     CHECK_REL(p.t.responder_value, 10.1409105290182, k15);  // I18
-    CHECK_REL(p.t.agreement_probability, 0.8, 1e-15);  // P(ever) = H/L (B.6)
+    CHECK_REL(p.t.agreement_probability, 0.8, 1e-15);  // P(ever) = H/L (s.2.6)
 }
 
-TEST_CASE("Offer path closed forms of B.2 against the recursion", "[offers]") {
-    // T = 2 (B.2): m_2 = (1 - d_b/2)/(2 - d_b - d_s/2), l_2 = (1 - d_b/2)^2/(2 - d_b - d_s/2).
+TEST_CASE("Offer path closed forms of s.2.2 against the recursion", "[offers]") {
+    // T = 2 (s.2.2): m_2 = (1 - d_b/2)/(2 - d_b - d_s/2), l_2 = (1 - d_b/2)^2/(2 - d_b - d_s/2).
     for (double ds : {0.0, 0.3, 0.9, 1.0}) {
         for (double db : {0.0, 0.5, 0.95, 1.0}) {
             const double den = 2 - db - ds / 2, m2 = (1 - db / 2) / den, l2 = (1 - db / 2) * m2;
@@ -120,7 +125,7 @@ TEST_CASE("Offer path closed forms of B.2 against the recursion", "[offers]") {
         }
     }
     // d_b = 0 (myopic buyer): l_n = A_(n-1)/A_n, A_n = ((1+s)^(n+1) - (1-s)^(n+1))/(2s),
-    // s = sqrt(1 - d_s); the reference's special values for d_s = 0.9, n = 2, 5 and
+    // s = sqrt(1 - d_s); its values at 50 digits for d_s = 0.9, n = 2, 5 and
     // d_s = 0.99, n = 10: 0.645161290322581, 0.745657568238213, 0.884125002157506.
     const double want[] = {0.645161290322581, 0.745657568238213, 0.884125002157506};
     const double dss[] = {0.9, 0.9, 0.99};
@@ -144,7 +149,7 @@ TEST_CASE("Offer path closed forms of B.2 against the recursion", "[offers]") {
     }
 }
 
-TEST_CASE("Offer path, no deadline: stationary closed form of B.3", "[offers]") {
+TEST_CASE("Offer path, no deadline: stationary closed form of s.2.3", "[offers]") {
     // mu = 1/(1 + sqrt(1 - d_s)), lambda = (1 - d_b) mu/(1 - d_b mu); p_t = c + lambda mu^(t-1) H;
     // E[round | agreement] = 1/(1 - mu); seller value lambda H^2/(2L);
     // buyer value H^2 (1 - mu)((1 + mu)/2 - lambda)/((1 - d_b mu^2) L).
@@ -162,8 +167,9 @@ TEST_CASE("Offer path, no deadline: stationary closed form of B.3", "[offers]") 
                       H * H * (1 - mu) * ((1 + mu) / 2 - lam) / ((1 - db * mu * mu) * L), 1e-13);
         }
     }
-    // Coase limit (B.3): d = exp(-r Delta), r = 0.1, Delta = 1e-6: 1 - mu = 3.16128e-4,
-    // expected calendar delay Delta/(1 - mu) = 3.16328e-3 (values from the reference).
+    // Coase limit (s.2.3): d = exp(-r Delta), r = 0.1, Delta = 1e-6: 1 - mu = 3.16128e-4,
+    // expected calendar delay Delta/(1 - mu) = 3.16328e-3 (the closed form
+    // 1 - mu = s/(1 + s), s = sqrt(1 - d), evaluated at 50 digits).
     const double d = std::exp(-0.1 * 1e-6);
     Path p = seller_path(0, 1, d, d, 0, 0, 1);
     CHECK(std::fabs(1 - p.rows[0].cutoff - 3.16128e-4) < 5e-10);
@@ -171,7 +177,8 @@ TEST_CASE("Offer path, no deadline: stationary closed form of B.3", "[offers]") 
 }
 
 TEST_CASE("Offer path: the long deadline tends to no deadline (no gap)", "[offers]") {
-    // B.2: l_T, m_T converge to lambda, mu as T grows (the reference checked T = 3000).
+    // s.2.3: l_T, m_T converge to lambda, mu as T grows (the deadline equilibria tend to
+    // the stationary one).
     for (double ds : {0.5, 0.9, 0.97}) {
         for (double db : {0.0, 0.7, 0.95}) {
             const Path inf = seller_path(0, 1, ds, db, 0, 0, 4);
@@ -190,7 +197,7 @@ TEST_CASE("Offer path: the long deadline tends to no deadline (no gap)", "[offer
     }
 }
 
-TEST_CASE("Offer path edge cases of B.6 and their statuses", "[offers]") {
+TEST_CASE("Offer path edge cases of s.2.6 and their statuses", "[offers]") {
     // v_hi <= c: no type values the good above cost: no deal, probabilities and values 0.
     Path p = seller_path(0, 1, 0.9, 0.9, 3, 1.0);
     CHECK(p.status == CTO_E_NO_DEAL);
@@ -212,7 +219,7 @@ TEST_CASE("Offer path edge cases of B.6 and their statuses", "[offers]") {
     CHECK_REL(p.t.offerer_value, 0.5, 1e-15);
     CHECK(seller_path(0.7, 0.7, 0.9, 0.9, 0, 0.7).status == CTO_E_NO_DEAL);
     // d_b = 1 < d_s's complement, no deadline: price at cost at once, timing indeterminate;
-    // seller value 0, buyer value E[(v - c)+] = H^2/(2L) (B.6).
+    // seller value 0, buyer value E[(v - c)+] = H^2/(2L) (s.2.6).
     p = seller_path(0, 2, 0.9, 1.0, 0, 0.5);
     CHECK(p.status == CTO_E_INDETERMINATE);
     CHECK(p.t.offerer_value == 0.0);

@@ -4,7 +4,7 @@
 // conditions with degree-8 Chebyshev interpolation of each stage (in value space for
 // seller offers and, written separately, in cost space for the mirror case), the
 // stationary equilibrium as the fixed point of one such stage, and a Monte Carlo of
-// 4 x 10^6 responder types choosing their best round on each path (REFERENCE-PRIVATE D.B;
+// 4 x 10^6 responder types choosing their best round on each path (the model:
 // Sobel & Takahashi 1983; Stokey 1981; Gul, Sonnenschein & Wilson 1986).  The gap rows
 // (the last 16) come from a separate mpmath implementation of the piecewise recursion
 // whose envelope is cut at every pairwise crossing of the candidates, each stage checked

@@ -1,4 +1,4 @@
-// Properties the models must have (REFERENCE.md sections 1-6 and 10), on random inputs
+// Properties the models must have (docs/models/complete-information.md s.1-6 and s.10), on random inputs
 // from a fixed seed.  Each property names the result it follows from.
 #include <catch2/catch.hpp>
 
@@ -130,7 +130,7 @@ TEST_CASE("own share rises with own patience and with own outside option", "[pro
 
 TEST_CASE("the opener's advantage is never negative and equals opener minus responder share",
           "[property]") {
-    // REFERENCE s.10: S (1 - d_A)(1 - d_B)/(1 - d_A d_B) = x* - (S - y*).
+    // docs/models/complete-information.md s.10: S (1 - d_A)(1 - d_B)/(1 - d_A d_B) = x* - (S - y*).
     for (int i = 0; i < 5000; ++i) {
         const double a = factor(), b = factor();
         double fma_, as_opener, as_responder;
@@ -144,7 +144,8 @@ TEST_CASE("the opener's advantage is never negative and equals opener minus resp
 }
 
 TEST_CASE("deadline_share tends to share as rounds grow", "[property]") {
-    // Stahl (1972) -> Rubinstein (1982): the gap shrinks like q^(T/2) (REFERENCE s.3).
+    // Stahl (1972) -> Rubinstein (1982): the gap shrinks like q^(T/2)
+    // (docs/models/complete-information.md s.3).
     for (int i = 0; i < 300; ++i) {
         const double a = uni(0.5, 0.999), b = uni(0.5, 0.999);
         const double ba = uni(0, 0.4), bb = uni(0, 0.4);
@@ -194,7 +195,7 @@ TEST_CASE("implied_factor inverts share", "[property]") {
 }
 
 TEST_CASE("special functions agree with solve to the last digit", "[property]") {
-    // CATALOGUE.md: each special function is solve with the other features off.
+    // docs/models/complete-information.md s.7: each special function is solve with the other features off.
     for (int i = 0; i < 20000; ++i) {
         const double a = factor(), b = factor();
         const int opens = i % 2;
@@ -230,7 +231,8 @@ TEST_CASE("special functions agree with solve to the last digit", "[property]") 
 
 TEST_CASE("outside options: each regime of Muthoo (1999) ch.5 is reached and reported",
           "[property]") {
-    // d = 0.9, pie 1 (REFERENCE rows 40-49): U = 1/1.9; thresholds d U = 0.47368...
+    // d = 0.9, pie 1 (check values 40-49 of test_published.cpp): U = 1/1.9; thresholds
+    // d U = 0.47368...
     int st;
     cto_solve_input in = solve_in(0.9, 0.9);
     in.has_own_outside = in.has_other_outside = 1;

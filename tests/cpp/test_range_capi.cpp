@@ -1,8 +1,8 @@
 // The ranges engine through the C ABI (cto_share_range, cto_share_swing): struct
 // handling, defaults, invalid input, degenerate ranges and one-input quantiles against
 // the closed-form share (the share is monotone in each rate, so the p-quantile of the
-// share is the share at the input's p-quantile; REFERENCE-PRIVATE C, "one uncertain
-// input", written down in docs/models/ranges.md), and bit identity across threads.
+// share is the share at the input's p-quantile; docs/models/ranges.md, "Accuracy"),
+// and bit identity across threads.
 #include <catch2/catch.hpp>
 
 #include <cmath>

@@ -1,6 +1,6 @@
-// The share_range engine over the two example models of the design notes
-// (REFERENCE-PRIVATE C.2, written as closed forms in test_range_support.hpp), against:
-//   * the exact quantiles of the d = 2 example (C.8.3: 1-D mpmath quadrature, 30 digits);
+// The share_range engine over the two examples of docs/models/ranges.md ("The two
+// examples", written as closed forms in test_range_support.hpp), against:
+//   * the exact quantiles of the d = 2 example (1-D mpmath quadrature, 30 digits);
 //   * an independent numpy implementation of generator, inverse CDFs and models
 //     (tests/reference/range/make_rqmc_reference.py: the same draws, 16 x 2^18 of them);
 //   * exact quantiles with one uncertain input (make_one_input.py, mpmath at 40 digits:
@@ -51,7 +51,8 @@ RangeOut run(const Model &m, const std::vector<RangeArg> &a, const RangeOptions 
     return out;
 }
 
-// C.8.3: exact quantiles of the d = 2 example (15 significant digits).
+// The exact quantiles of the d = 2 example (15 significant digits; docs/models/ranges.md,
+// "The two examples").
 struct Exact { double p, q; };
 const Exact kExactD2[] = {{0.05, 0.216142643638679}, {0.10, 0.245000119271927},
                           {0.25, 0.299376653834889}, {0.50, 0.367479205474840},
@@ -140,9 +141,9 @@ TEST_CASE("Range engine: d = 5 adaptive runs agree with the 2^22-draw reference"
     // 2e-5; runs with other seeds at three digits must agree within twice their
     // half-width plus three reference standard errors.  (A fixed-seed check: twice the
     // 95% half-width is t = 4.26 standard errors, exceeded with probability below 0.1%
-    // by a correct engine; the coverage test measures the 95% rate itself.)  Its d = 5 values also match the design
-    // notes' 8 x 2^23-point figures (REFERENCE-PRIVATE C.5: q10 0.438872, q50 0.493084,
-    // q90 0.543224, mean 0.491756) within their rounding.
+    // by a correct engine; the coverage test measures the 95% rate itself.)  Its d = 5 values
+    // also match the 8 x 2^23-point figures of docs/models/ranges.md ("The two examples":
+    // q10 0.438872, q50 0.493084, q90 0.543224, mean 0.491756) within their rounding.
     const auto rows = reference_rows("d5", 18);
     REQUIRE(rows.size() == 16);
     for (uint64_t seed : {5u, 6u}) {
@@ -164,7 +165,7 @@ TEST_CASE("Range engine: d = 5 adaptive runs agree with the 2^22-draw reference"
     }
 }
 
-TEST_CASE("Range engine: d = 2 quantiles cover the exact values of C.8.3", "[range]") {
+TEST_CASE("Range engine: d = 2 quantiles cover the exact values", "[range]") {
     // Adaptive run with the defaults (3 digits); for each seed every exact quantile lies
     // within two half-widths (t = 4.26 standard errors: a fixed-seed check that a correct
     // engine fails with probability below 0.1%; the coverage test measures the rate).
@@ -178,11 +179,11 @@ TEST_CASE("Range engine: d = 2 quantiles cover the exact values of C.8.3", "[ran
             CHECK(out.own[k].digits >= 3);
             CHECK(out.own[k].half_width <= 5e-4);  // three digits of a value in [0.1, 1)
         }
-        // The mean (C.8.3 Q8, 0.370596191328 from 8 x 2^22 RQMC points, +-4e-9).
+        // The mean (0.370596191328 from 8 x 2^22 RQMC points, +-4e-9; "The two examples").
         CHECK(std::fabs(out.own_mean.value - 0.370596191328) <= out.own_mean.half_width + 1e-8);
         CHECK(out.p_rational.value == 1.0);
         CHECK(out.edge_fraction.value == 0.0);
-        // C.6: three digits need about 16 x 2^11 points in this example.
+        // Three digits need about 16 x 2^11 points in this example ("Speed and memory").
         CHECK(out.log2_used >= 10);
         CHECK(out.log2_used <= 13);
     }
@@ -211,7 +212,7 @@ TEST_CASE("Range engine: one uncertain input gives the share at its quantile", "
         // Error bound.  In one dimension each replicate puts exactly one draw in each of
         // n equal slices of the input's probability, so a replicate's quantile varies
         // with sd between 0.20/n and 0.29/n (in probability), while the pooled estimate's
-        // CDF varies with sd up to 0.5/(n sqrt R): the C.4 error bar can understate the
+        // CDF varies with sd up to 0.5/(n sqrt R): the error bar can understate the
         // pooled error by up to 0.5/0.2 = 2.5 (docs/models/ranges.md, "Coverage").
         CHECK(err <= 2.5 * out.own[0].half_width);
     }
@@ -219,8 +220,8 @@ TEST_CASE("Range engine: one uncertain input gives the share at its quantile", "
 
 TEST_CASE("Range engine: 95% error bars cover the exact quantiles in >= 90% of 200 runs",
           "[range][coverage]") {
-    // C.4: with R = 16 the interval covered the exact quantile in 92.5-96% of 200
-    // repetitions.  200 seeds, n = 2^11 per replicate, the d = 2 example, p = 0.1/0.5/0.9.
+    // An earlier numpy experiment of the same procedure (R = 16) covered the exact
+    // quantile in 92.5-96% of 200 repetitions (docs/models/ranges.md, "Coverage").  200 seeds, n = 2^11 per replicate, the d = 2 example, p = 0.1/0.5/0.9.
     // About 1.5 s in a Release build (6.6 million model evaluations).
     int covered[3] = {0, 0, 0};
     const int exact_index[3] = {1, 3, 5};

@@ -1,8 +1,10 @@
 // The generator of share_range: Sobol' points (Joe & Kuo 2008 direction numbers,
-// Bratley & Fox 1988 recurrence, natural order) and hashed Owen scrambling, against the
-// exact test vectors of the design notes (REFERENCE-PRIVATE C.3 and C.8.2, computed there
-// by a numpy and an independent pure-Python implementation) and against the defining
-// properties of a scrambled (0, m, 1)-net in each coordinate (Owen 1995, s.3).
+// Bratley & Fox 1988 recurrence, natural order) and hashed Owen scrambling, against
+// exact test vectors (rows 2..10 of Joe & Kuo's file new-joe-kuo-6.21201; the points and
+// scrambled points of docs/models/ranges.md "The generator" for seed 20240601, computed
+// with 64-bit integers by a numpy and an independent pure-Python implementation of those
+// rules, which agreed bit for bit) and against the defining properties of a scrambled
+// (0, m, 1)-net in each coordinate (Owen 1995, s.3).
 #include <catch2/catch.hpp>
 
 #include <cstdint>
@@ -22,10 +24,11 @@ uint64_t bits(double x) {
 }
 }  // namespace
 
-TEST_CASE("Sobol direction numbers: the Joe-Kuo rows of REFERENCE-PRIVATE C.3", "[range]") {
+TEST_CASE("Sobol direction numbers: rows 2..10 of Joe & Kuo (2008)", "[range]") {
     // Dimension 1: v_k = 2^(32-k).
     for (int k = 1; k <= 32; ++k) CHECK(sobol_direction(0, k) == (uint32_t{1} << (32 - k)));
-    // Rows 2..10 (s, a, m_1..m_s) from C.3: the first s numbers are m_k 2^(32-k).
+    // Rows 2..10 (s, a, m_1..m_s) of new-joe-kuo-6.21201: the first s numbers are
+    // m_k 2^(32-k).
     struct Row { int dim; std::vector<uint32_t> m; };
     const Row rows[] = {{2, {1}},          {3, {1, 3}},         {4, {1, 3, 1}},
                         {5, {1, 1, 1}},    {6, {1, 1, 3, 3}},   {7, {1, 3, 5, 13}},
@@ -41,7 +44,7 @@ TEST_CASE("Sobol direction numbers: the Joe-Kuo rows of REFERENCE-PRIVATE C.3", 
     CHECK(sobol_direction(2, 4) == (9u << 28));
 }
 
-TEST_CASE("Sobol points: unscrambled X_i of REFERENCE-PRIVATE C.8.2", "[range]") {
+TEST_CASE("Sobol points: unscrambled X_i, the test vectors", "[range]") {
     struct Case { uint64_t i; uint32_t x[5]; };
     const Case cases[] = {
         {0, {0, 0, 0, 0, 0}},
@@ -76,7 +79,7 @@ TEST_CASE("Sobol points: each coordinate of 2^m points is a (0, m, 1)-net", "[ra
     }
 }
 
-TEST_CASE("Owen scrambling: keys and scrambled Y_i of REFERENCE-PRIVATE C.8.2", "[range]") {
+TEST_CASE("Owen scrambling: keys and scrambled Y_i, test vectors of seed 20240601", "[range]") {
     const uint64_t seed = 20240601u;
     const uint64_t keys[5] = {1477901222294324753ull, 3882548067397510560ull,
                               4377152723251617012ull, 1113273965586026184ull,
@@ -94,7 +97,7 @@ TEST_CASE("Owen scrambling: keys and scrambled Y_i of REFERENCE-PRIVATE C.8.2", 
     for (const Case &c : cases)
         for (int j = 0; j < 5; ++j)
             CHECK(owen_scramble(sobol_point(c.i, j), keys[j]) == c.y[j]);
-    // u for i = 0, dimensions 1-2, compared by bit pattern (C.8.2).
+    // u for i = 0, dimensions 1-2, compared by bit pattern (the same test vectors).
     CHECK(bits(unit_from_bits(4145063413u)) == bits(0.96509778255131096));
     CHECK(bits(unit_from_bits(992096932u)) == bits(0.23099056736100465));
 }
@@ -122,9 +125,9 @@ TEST_CASE("Owen scrambling keeps the net: one point per interval, u in (0, 1)", 
 
 TEST_CASE("Owen scrambling: the prefix cache gives the same bits", "[range]") {
     // owen_scramble_cached is a cache of owen_scramble's flips (scramble.hpp): equal for
-    // every x, on the AVX2 path (scramble_simd.cpp, where the CPU has it) and the scalar
-    // one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes, for several
-    // cache depths.
+    // every x, on each path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them)
+    // and the scalar one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes,
+    // for several cache depths.  The paths the CPU has are named in the test output.
     std::vector<uint32_t> mask(size_t{1} << kMaxPrefixBits);
     for (int L : {0, 1, 2, 7, 12, 16}) {
         const uint64_t key = scramble_key(20240601u, 3, static_cast<uint64_t>(L));
@@ -134,8 +137,12 @@ TEST_CASE("Owen scrambling: the prefix cache gives the same bits", "[range]") {
             state += kGolden;
             const uint32_t x = t == 0 ? 0u : t == 1 ? 0xFFFFFFFFu : static_cast<uint32_t>(mix64(state) >> 32);
             const uint32_t want = owen_scramble(x, key);
-            REQUIRE(owen_scramble_cached(x, key, L, mask.data()) == want);  // AVX2 if present
+            REQUIRE(owen_scramble_cached(x, key, L, mask.data()) == want);  // widest path
+            REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kAvx2) == want);
             REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kScalar) == want);
         }
     }
+    uint32_t probe = 0;
+    WARN("vector paths on this CPU: AVX-512 " << scramble_tail_avx512(1, 2, 3, &probe)
+                                              << ", AVX2 " << scramble_tail_avx2(1, 2, 3, &probe));
 }

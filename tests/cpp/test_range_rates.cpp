@@ -1,9 +1,10 @@
 // share_range and share_swing over the combined model from rates (solve_rates), against
-// values from outside the library: the exact quantiles of the design notes' d = 2 example
-// (REFERENCE-PRIVATE C.8.3), the numpy reference run of the same draws
-// (tests/reference/range/make_rqmc_reference.py, closed forms of C.2), the breakdown
+// values from outside the library: the exact quantiles of the d = 2 example of
+// docs/models/ranges.md ("The two examples"), the numpy reference run of the same draws
+// (tests/reference/range/make_rqmc_reference.py, closed forms of the two examples), the
+// breakdown
 // closed form of Binmore, Rubinstein & Wolinsky (1986) / Muthoo (1999) ch. 4 for the swing,
-// and Shaked & Sutton's (1984) threshold for a walk-away value to bind (REFERENCE s.5).
+// and Shaked & Sutton's (1984) threshold for a walk-away value to bind (docs/models/complete-information.md s.5).
 #include <catch2/catch.hpp>
 
 #include <cmath>
@@ -19,7 +20,7 @@ using namespace cto_range_test;
 
 namespace {
 
-// The catalogue inputs of solve_from_rates with monthly offers as in C.2: days = 1,
+// The catalogue inputs of solve_from_rates with monthly offers as in the two examples: days = 1,
 // basis = 12, continuous compounding (factor exp(-r/12)); no breakdown, fallbacks,
 // inside or outside options; surplus 1; own opens.
 RangeIn base_in() {
@@ -70,7 +71,7 @@ std::vector<std::vector<std::string>> reference_rows(const char *model, int log2
 
 }  // namespace
 
-TEST_CASE("share_range over solve_rates: the numpy reference draws (C.2 closed forms)",
+TEST_CASE("share_range over solve_rates: the numpy reference draws (the examples' closed forms)",
           "[range]") {
     // The same seed gives the same draws in the same dimensions (slots 0, 1, 3, 4, 5), and
     // solve_rates agrees with the closed forms to rounding, so the pooled quantiles agree
@@ -95,7 +96,7 @@ TEST_CASE("share_range over solve_rates: the numpy reference draws (C.2 closed f
     }
 }
 
-TEST_CASE("share_range over solve_rates: exact d = 2 quantiles of C.8.3", "[range]") {
+TEST_CASE("share_range over solve_rates: exact d = 2 quantiles", "[range]") {
     const double p[3] = {0.1, 0.5, 0.9};
     const double exact[3] = {0.245000119271927, 0.367479205474840, 0.501025023257586};
     const RangeOut out = range(in_d2(), options({0.1, 0.5, 0.9}, 11, 10, 20));
@@ -112,7 +113,7 @@ TEST_CASE("share_range over solve_rates: exact d = 2 quantiles of C.8.3", "[rang
 
 TEST_CASE("share_range over solve_rates: how often other's walk-away value binds",
           "[range]") {
-    // Shaked & Sutton (1984); REFERENCE s.5: with own opening, other's walk-away value w
+    // Shaked & Sutton (1984); docs/models/complete-information.md s.5: with own opening, other's walk-away value w
     // binds exactly when w > d_B (1 - d_A)/(1 - d_A d_B) (other's share as proposer,
     // discounted one round).  With w ~ U(0, 0.8) the probability is (0.8 - w*)/0.8, and
     // a (0, m, 1)-net hits it within 1/n.
@@ -130,7 +131,7 @@ TEST_CASE("share_range over solve_rates: how often other's walk-away value binds
 TEST_CASE("share_range over solve_rates: no-deal draws and invalid inputs", "[range]") {
     // Fallbacks that can exceed the surplus together: b_A, b_B ~ U(0.3, 0.9) with p = 0.5
     // per round and no discounting (rates 0, so the value of waiting is the fallback
-    // itself); no deal when b_A + b_B >= 1 (REFERENCE s.12), probability
+    // itself); no deal when b_A + b_B >= 1 (complete-information.md s.4), probability
     // 1 - 0.4^2/2 / 0.36 = 0.777... (the triangle below b_A + b_B = 1 in the square).
     RangeIn in = base_in();
     in.arg[0] = fixed(0.0);
@@ -166,7 +167,8 @@ TEST_CASE("share_range over solve_rates: no-deal draws and invalid inputs", "[ra
     RangeIn small = in_d2();
     small.size = sizeof(RangeIn) - 1;
     CHECK(range(small, options({0.5}, 0, 8, 8)).bad == kBadSize);
-    // A degenerate range equals the fixed input exactly (C.7a).
+    // A degenerate range equals the fixed input exactly (docs/models/ranges.md, "Input
+    // distributions").
     RangeIn a = in_d5(), b = in_d5();
     a.arg[4] = fixed(0.2);
     b.arg[4] = pert(0.2, 0.2, 0.2);

@@ -1,10 +1,13 @@
 // The rules of share_range that do not depend on the model: reproducibility to the bit
-// across thread counts (REFERENCE-PRIVATE C.7), degenerate ranges equal to fixed inputs
-// (C.7a), invalid input named by index (CATALOGUE "Additions"), the precision cap (C.6),
+// across thread counts (docs/models/ranges.md, "Reproducibility"), degenerate ranges equal
+// to fixed inputs ("Input distributions"), invalid input named by index ("Inputs,
+// options, outputs"), the precision cap ("Estimators and error bars"),
 // and the probabilities counted over draws, against values computed by hand.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <vector>
 
 #include "range/quantile.hpp"
@@ -49,7 +52,7 @@ TEST_CASE("Range rules: bit-identical results for 1, 2, 3 and 16 threads", "[ran
 }
 
 TEST_CASE("Range rules: a degenerate range equals the fixed input, bit for bit", "[range]") {
-    // C.7a: low = high is a constant that keeps its dimension.
+    // low = high is a constant that keeps its dimension ("Inputs, options, outputs").
     const RangeOptions o = options({0.1, 0.5, 0.9}, 3, 9, 11);
     std::vector<RangeArg> a = args_d5();
     a[4] = fixed(0.2);
@@ -131,7 +134,7 @@ TEST_CASE("Range rules: invalid ranges and options are named by index", "[range]
 }
 
 TEST_CASE("Range rules: precision not reached is a status, with every estimate", "[range]") {
-    // Six digits of a quantile need far more than 2^10 points per replicate (C.6).
+    // Six digits of a quantile need far more than 2^10 points per replicate.
     RangeOptions o = options({0.1, 0.5, 0.9}, 1, 8, 10);
     o.digits = 6;
     const RangeOut out = run(model_d5, args_d5(), o);
@@ -215,14 +218,53 @@ TEST_CASE("Range estimators: type-7 quantiles, pooled selection, t quantiles", "
     CHECK(std::signbit(all[3]));  // totalOrder: -0 before +0
     CHECK_FALSE(std::signbit(all[5]));
     // t_{nu, 0.975}: 12.7062 (nu = 1), 2.2281 (nu = 10) from standard t tables (from
-    // memory); 2.13145 (nu = 15) from REFERENCE-PRIVATE C.4.
+    // memory); 2.13145 (nu = 15) as in docs/models/ranges.md, "Estimators and error bars"
+    // (the table in t_quantiles.inc is computed by mpmath).
     CHECK(t975(1) == Approx(12.7062).epsilon(1e-5));
     CHECK(t975(10) == Approx(2.2281).epsilon(1e-4));
     CHECK(t975(15) == Approx(2.13145).epsilon(1e-6));
     CHECK(std::isnan(t975(0)));
-    // Digit target: half a unit of the third significant digit of 0.367 is 5e-4 (C.6).
+    // Digit target: half a unit of the third significant digit of 0.367 is 5e-4
+    // ("Estimators and error bars").
     CHECK(digit_tolerance(0.367, 3) == Approx(5e-4).epsilon(1e-15));
     CHECK(digit_tolerance(36.7, 3) == Approx(0.05).epsilon(1e-15));
     CHECK(digits_reached(0.367, 4.9e-4) == 3);
     CHECK(digits_reached(0.367, 5.1e-4) == 2);
+}
+
+TEST_CASE("Ranges: the sort puts doubles in IEEE 754 totalOrder at every length", "[range]") {
+    // IEEE 754-2008 s.5.10 totalOrder: -inf < negatives < -0 < +0 < positives < +inf,
+    // compared here with std::sort on a comparator written from that definition, for lengths
+    // on both sides of the switch from comparison to radix sorting, and for values that share
+    // their leading bits (the digits the radix sort skips) and values that do not.
+    auto total_less = [](double a, double b) {
+        if (a < b) return true;
+        if (b < a) return false;
+        return std::signbit(a) && !std::signbit(b);  // -0 before +0
+    };
+    uint64_t state = 42;
+    auto next = [&state] {  // SplitMix64 (Steele, Lea & Flood 2014) as a test stream
+        state += 0x9E3779B97F4A7C15ull;
+        uint64_t z = state;
+        z = (z ^ (z >> 30)) * 0xBF58476D1CE4E5B9ull;
+        z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
+        return z ^ (z >> 31);
+    };
+    for (size_t n : {size_t{1}, size_t{2}, size_t{255}, size_t{256}, size_t{257}, size_t{4096}}) {
+        for (int kind = 0; kind < 3; ++kind) {
+            std::vector<double> y(n);
+            for (size_t i = 0; i < n; ++i) {
+                const double u = static_cast<double>(next() >> 11) * 0x1p-53;
+                if (kind == 0) y[i] = 41.0 + u;                    // one deal: shared leading bits
+                else if (kind == 1) y[i] = (u - 0.5) * 1e6;        // both signs, wide range
+                else y[i] = (i % 7 == 0) ? -0.0 : (i % 11 == 0) ? 0.0 : (i % 13 == 0) ? -INFINITY
+                         : (i % 17 == 0) ? INFINITY : std::ldexp(u, static_cast<int>(next() % 200) - 100);
+            }
+            std::vector<double> want = y;
+            std::sort(want.begin(), want.end(), total_less);
+            sort_total(y.data(), n);
+            INFO("n=" << n << " kind=" << kind);
+            for (size_t i = 0; i < n; ++i) REQUIRE(bits(y[i]) == bits(want[i]));
+        }
+    }
 }

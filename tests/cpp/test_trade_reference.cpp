@@ -3,7 +3,7 @@
 // independent of the polygon algorithm: Gauss-Legendre quadrature of the equilibrium
 // strategies used as black boxes (trade boundary and kinks found by bisection), the
 // second-best threshold as the root of a quadrature H, and a best-response test on grids
-// (REFERENCE-PRIVATE D.A; Chatterjee & Samuelson 1983; Myerson & Satterthwaite 1983).
+// (the model: Chatterjee & Samuelson 1983; Myerson & Satterthwaite 1983).
 //
 // Tolerance: relative error <= 1e-14, or absolute error <= 1e-14 x D (D = b_hi - s_lo, the
 // money scale) for values smaller than D.  The status and the regime must match exactly,

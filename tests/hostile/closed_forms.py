@@ -14,7 +14,7 @@ class Invalid(Exception):
 
 
 def rubinstein(d1, d2, s, opens):
-    """Rubinstein (1982) main theorem; Muthoo (1999) ch.3; REFERENCE.md s.1."""
+    """Rubinstein (1982) main theorem; Muthoo (1999) ch.3; docs/models/complete-information.md s.1."""
     if d1 == 1 and d2 == 1:
         return None if s <= 0 else ("indet", None)  # both apply: no order documented
     if s <= 0:
@@ -31,7 +31,7 @@ def o_factor(rate, days, basis, cont):
 
 
 def o_share(d1, d2, s, opens):
-    """Rubinstein (1982) main theorem; Muthoo (1999) ch.3; REFERENCE.md s.1."""
+    """Rubinstein (1982) main theorem; Muthoo (1999) ch.3; docs/models/complete-information.md s.1."""
     return rubinstein(d1, d2, s, opens)
 
 
@@ -62,7 +62,8 @@ COMBINED_MONEY_MAX = mp.mpf(1.7976931348623157e308) / 64
 
 
 def o_breakdown(d1, d2, p, b1, b2, s, opens):
-    """BRW (1986); Muthoo (1999) ch.4; the header's closed form (REFERENCE.md s.4.2)."""
+    """BRW (1986); Muthoo (1999) ch.4; the header's closed form (docs/models/complete-information.md
+    s.4)."""
     if max(abs(b1), abs(b2), abs(s)) > COMBINED_MONEY_MAX:
         raise Invalid("a money amount beyond DBL_MAX/64 is too large to compute (header)")
     if p == 0 and d1 == 1 and d2 == 1:
@@ -106,12 +107,13 @@ def o_deadline(d1, d2, rounds, b1, b2, s, opens, p=0.0):
 
 
 def o_delay(f, stake, p, b):
-    """CATALOGUE.md: stake - ((1-p) factor stake + p fallback) (REFERENCE.md s.10)."""
+    """Delay cost: stake - ((1-p) factor stake + p fallback) (docs/models/complete-information.md s.4)."""
     return ("ok", p * (stake - b) + (1 - p) * (1 - f) * stake)
 
 
 def o_first(d1, d2, s):
-    """REFERENCE.md s.10: surplus (1-d_own)(1-d_oth)/(1-d_own d_oth); Rubinstein (1982)."""
+    """docs/models/complete-information.md s.10: surplus (1-d_own)(1-d_oth)/(1-d_own d_oth); Rubinstein
+    (1982)."""
     if d1 == 1 and d2 == 1:
         return None if s <= 0 else ("indet", None)
     if s <= 0:
@@ -174,7 +176,8 @@ def o_implied(s, d2, opens):
 
 
 def o_screen(vh, vl, q, ds, db):
-    """Fudenberg & Tirole (1983) setting; REFERENCE.md s.9: max of pool, screen, skim."""
+    """Fudenberg & Tirole (1983) setting; docs/models/complete-information.md s.12: max of pool, screen,
+    skim."""
     if vh < vl:
         raise Invalid("high value below low value (header)")
     best = max(vl, q * ((1 - db) * vh + db * vl) + (1 - q) * ds * vl)

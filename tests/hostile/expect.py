@@ -3,7 +3,7 @@ library's table through officekit.catalogue), a valid base call of each, what th
 library receives for each argument as written, and the expected value or error code.
 
 Sources of the rules: the argument kinds of lib/include/counteroffer/counteroffer.h
-(CTO_ARG_*), CATALOGUE.md "What every function must do with bad input", and
+(CTO_ARG_*), docs/reference/functions.md "Bad input, on each surface", and
 addin/README.md ("Argument values", "Error values"); expected values from the closed
 forms in closed_forms.py.
 """

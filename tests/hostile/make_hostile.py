@@ -13,8 +13,8 @@ errors from the documented rules (expect.py):
 
 * argument kinds and domains: lib/include/counteroffer/counteroffer.h (CTO_ARG_*:
   unit [0,1], nonneg >= 0, positive > 0, bool 0/1, count whole >= min within int64,
-  choice an index or its text) and CATALOGUE.md "What every function must do with bad
-  input";
+  choice an index or its text) and docs/reference/functions.md "Bad input, on each
+  surface";
 * status -> Calc error: addin/README.md "Error values" (invalid -> Err:502 (502),
   no deal -> #N/A (32767), indeterminate -> #NUM! (503), no convergence -> Err:523);
 * argument values: addin/README.md "Argument values" (text where a number is needed is

@@ -4,9 +4,10 @@ Sources named beside each check:
 * tests/reference/private/offer_path.csv (50 digits, backward induction by first-order
   conditions with Chebyshev interpolation, checked by a Monte Carlo of responder types;
   Sobel & Takahashi 1983): opening offer, second offer, cutoffs, agreement probability;
-* the two-round closed form of REFERENCE-PRIVATE B.2 for [0, 1] and factors 0.9:
+* the two-round closed form of docs/models/private-information.md s.2.2 for [0, 1] and
+  factors 0.9:
   P(agreement) = 15/26 (exact fraction, by hand: m_2 = 0.55/0.65, H_2 = m_2/2);
-* the stationary no-deadline equilibrium of B.3 (Stokey 1981; Gul, Sonnenschein &
+* the stationary no-deadline equilibrium of s.2.3 (Stokey 1981; Gul, Sonnenschein &
   Wilson 1986): mu = 1/(1 + sqrt(1 - d_s)), P(by round t) = (1 - mu^t) H/L,
   price c + lambda mu^(t-1) H with lambda = (1 - d_b) mu/(1 - d_b mu).
 
@@ -48,10 +49,10 @@ def test_two_round_rows_against_the_50_digit_reference():
     assert abs(p.offer[1] - float(ref["offer_2"])) <= 1e-15
     assert abs(p.cutoff[0] - float(ref["cutoff_1"])) <= 1e-15
     assert abs(p.cutoff[1] - float(ref["cutoff_2"])) <= 1e-15
-    # P(agreement by the deadline) = 15/26 exactly (REFERENCE-PRIVATE B.2, two rounds)
+    # P(agreement by the deadline) = 15/26 exactly (private-information.md s.2.2, two rounds)
     assert abs(p.cumulative_probability[-1] - float(Fraction(15, 26))) <= 1e-15
     assert abs(p.cumulative_probability[-1] - float(ref["agreement_probability"])) <= 1e-15
-    # per round: (K_(t-1) - K_t)/L with K_0 = 1 (B.1)
+    # per round: (K_(t-1) - K_t)/L with K_0 = 1 (private-information.md s.2.1)
     assert abs(p.round_probability[0] - (1 - float(ref["cutoff_1"]))) <= 1e-15
     assert abs(p.round_probability[1] -
                (float(ref["cutoff_1"]) - float(ref["cutoff_2"]))) <= 1e-15
@@ -79,7 +80,7 @@ def test_rows_against_the_reference_table(row):
 
 
 def test_no_deadline_rows_follow_the_stationary_closed_form():
-    ds = db = 0.9  # B.3: mu = 1/(1 + sqrt(1 - d_s)), lambda = (1 - d_b) mu/(1 - d_b mu)
+    ds = db = 0.9  # s.2.3: mu = 1/(1 + sqrt(1 - d_s)), lambda = (1 - d_b) mu/(1 - d_b mu)
     mu = 1 / (1 + math.sqrt(1 - ds))
     lam = (1 - db) * mu / (1 - db * mu)
     p = co.offer_path_rows(0, 1, ds, db)
@@ -109,7 +110,7 @@ def test_frame_with_days_and_max_rows():
 
 def test_buyer_offers_and_bad_input():
     p = co.offer_path_rows(0, 1, 0.9, 0.9, 2, known_value=1, offerer="buyer")
-    # mirror of the seller's case (REFERENCE-PRIVATE B, mirror symmetry): offers 1 - p
+    # mirror of the seller's case (private-information.md s.2.1, the mirror case): offers 1 - p
     s = co.offer_path_rows(0, 1, 0.9, 0.9, 2)
     assert np.allclose(p.offer, 1 - s.offer, atol=1e-15, rtol=0)
     with pytest.raises(co.InvalidArgumentError, match="offer_path: private_high"):
@@ -120,6 +121,6 @@ def test_buyer_offers_and_bad_input():
         co.offer_path_rows(0, 1, 0.9, 0.9, 2, max_rows=-1)
     with pytest.raises(TypeError, match="one deal at a time"):
         co.offer_path_rows([0, 0.5], 1, 0.9, 0.9, 2)
-    with pytest.warns(co.NoDealWarning):  # no type gains: no rows (B.6)
+    with pytest.warns(co.NoDealWarning):  # no type gains: no rows (s.2.6)
         nd = co.offer_path_rows(0, 1, 0.9, 0.9, 2, known_value=2)
     assert len(nd.offer) == 0 and nd.complete

@@ -2,7 +2,8 @@
 results, the error policy, and checks against sources outside the ranges engine.
 
 Sources named beside each check:
-* the share is monotone in each rate (REFERENCE-PRIVATE C.8.3; Rubinstein 1982), so a
+* the share is monotone in each rate (Rubinstein 1982; docs/models/ranges.md, "The two
+  examples"), so a
   quantile of the share is the share at the input's quantile (its complement for a
   decreasing dependence); the input quantiles come from scipy.stats (uniform, triang,
   beta with the Beta-PERT parameters of Vose 2008 / Malcolm et al. 1959), the share from
@@ -125,7 +126,7 @@ def test_result_frame_and_repr():
     assert df.loc[0.5, "own"] == r.quantile(0.5).value
     text = repr(r)
     assert "status='ok'" in text and "0.25" in text and "P(deal rational)" in text
-    assert r.spec_version == 1 and r.replicates == 16 and r.points_per_replicate >= 1024
+    assert r.spec_version == 2 and r.replicates == 16 and r.points_per_replicate >= 1024
     assert dict(r.inputs)["other_rate"] == co.uniform(0.04, 0.16)
     with pytest.raises(KeyError):
         r.quantile(0.1)

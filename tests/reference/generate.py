@@ -40,8 +40,8 @@ RNG = random.Random(SEED)
 NAN = float("nan")
 INF = float("inf")
 
-# Argument names in catalogue order (CATALOGUE.md; the library's table must agree: the
-# C++ test checks every header against cto_function_info).
+# Argument names in catalogue order (docs/reference/functions.md; the library's table must
+# agree: the C++ test checks every header against cto_function_info).
 # Argument names in catalogue order, read from the one definition of each function.
 sys.path.insert(0, os.path.join(HERE, "..", "..", "lib", "gen"))
 import catalogue  # noqa: E402
@@ -153,7 +153,7 @@ def gen_round_factor():
     for a in ([-0.01, 30.0, 365.0, 0], [0.05, -1.0, 365.0, 0], [0.05, 30.0, 0.0, 0],
               [NAN, 30.0, 365.0, 1], [0.05, INF, 365.0, 0], [0.05, 30.0, 365.0, 2],
               [0.05, 30.0, -365.0, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ the two-party alternating-offers family
@@ -271,9 +271,9 @@ def alternating_reference(fn, A, B, p, pi, own_is_A, header_nd=None, allow_ties=
         ndA, ndB = header_nd
         deal = pi > ndA + ndB
         if deal:
-            return ("indeterminate", None, None, None, 1, "both factors 1, no breakdown: every split is an SPE (REFERENCE s.12)")
+            return ("indeterminate", None, None, None, 1, "both factors 1, no breakdown: every split is an SPE (docs/models/complete-information.md s.1 edge cases)")
         own_nd, oth_nd = (ndA, ndB) if own_is_A else (ndB, ndA)
-        return ("no_deal", own_nd, oth_nd, 0, 0, "both factors 1, no breakdown, surplus <= the values of waiting: no deal (REFERENCE s.12)")
+        return ("no_deal", own_nd, oth_nd, 0, 0, "both factors 1, no breakdown, surplus <= the values of waiting: no deal (docs/models/combined.md, what the outcome says)")
     dec = game_tree_decision(A, B, p, pi, allow_ties)
     if dec is None:
         skip(fn, "game-tree parities differ, or a decision within 1e-12 x scale of a tie", None)
@@ -283,7 +283,7 @@ def alternating_reference(fn, A, B, p, pi, own_is_A, header_nd=None, allow_ties=
     if deal and pi <= GA.d0 + GB.d0 and all(P.w is None or P.w < G.d0 for P, G in ((A, GA), (B, GB))):
         # the surplus does not exceed the values of waiting and nobody gains by walking
         # away: a deal would only tie with perpetual disagreement, which counts as no
-        # deal (REFERENCE s.12: b_A + b_B >= S gives no agreement)
+        # deal (docs/models/complete-information.md s.4 edge cases: b_A + b_B >= S gives no agreement)
         deal = False
         gt = dict(gt, x=GA.d0, t=GB.d0)
     delayed = deal and gt["k0"] != "agree"
@@ -359,12 +359,12 @@ def gen_share():
                           (0.5, 0.5, 0.0, 1), (0.9, 0.8, -3.0, 0), (1.0, 0.999999999, 1e12, 0),
                           (0.999999999, 1.0, 1e-6, 1), (0.5, 0.5, 1.0, 1), (0.95, 0.9, 1.0, 1)):
         res = family_row(fn, Party(dO), Party(dT), 0, M(S), op, (M(0), M(0)))
-        add(fn, [dO, dT, S, op], res[0], [res[1]], res[5] + "; " + SRC_RUB + "; REFERENCE s.12 edge")
+        add(fn, [dO, dT, S, op], res[0], [res[1]], res[5] + "; " + SRC_RUB + "; docs/models/complete-information.md s.1 edge cases")
     for op in (0, 1):
-        add(fn, [1.0, 1.0, 1.0, op], "indeterminate", [NAN], "both factors 1: every split is an SPE (REFERENCE s.12)")
+        add(fn, [1.0, 1.0, 1.0, op], "indeterminate", [NAN], "both factors 1: every split is an SPE (docs/models/complete-information.md s.1 edge cases)")
     for a in ([1.5, 0.9, 1.0, 1], [0.9, -0.1, 1.0, 1], [NAN, 0.9, 1.0, 1], [0.9, 0.9, INF, 1],
               [0.9, 0.9, 1.0, 3], [0.9, 0.9, 1.0, 0.5]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def rho_of(rate, days, basis, cont):
@@ -451,15 +451,15 @@ def gen_share_from_rates():
             A, B = Party(0), Party(0)
             A.d, B.d = mp.exp(-rho_of(a[0], a[2], a[5], 1)), mp.exp(-rho_of(a[1], a[2], a[5], 1))
             res = alternating_reference(fn, A, B, 0, M(1.0), True, (M(0), M(0)))
-        add(fn, a, res[0], [res[1]], res[5] + " on d_i = exp(-rho_i); Rubinstein (1982); Muthoo (1999) s.3.2; REFERENCE s.11 case")
+        add(fn, a, res[0], [res[1]], res[5] + " on d_i = exp(-rho_i); Rubinstein (1982); Muthoo (1999) s.3.2; check value of tests/cpp/test_published.cpp")
     for op in (0, 1):
-        add(fn, [0.0, 0.0, 30.0, 1.0, op, 365.0, 0], "indeterminate", [NAN], "both rates 0 (REFERENCE s.12)")
+        add(fn, [0.0, 0.0, 30.0, 1.0, op, 365.0, 0], "indeterminate", [NAN], "both rates 0 (docs/models/complete-information.md s.1 edge cases)")
         add(fn, [0.1, 0.05, 0.0, 1.0, op, 365.0, 1], "indeterminate", [NAN], "days = 0 (header: use limit_share)")
-        add(fn, [0.1, 0.05, 30.0, -2.0, op, 365.0, 1], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (REFERENCE s.12)")
+        add(fn, [0.1, 0.05, 30.0, -2.0, op, 365.0, 1], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (statuses in docs/reference/functions.md)")
     for a in ([-0.1, 0.05, 30.0, 1.0, 1, 365.0, 0], [0.1, 0.05, -1.0, 1.0, 1, 365.0, 0],
               [0.1, 0.05, 30.0, 1.0, 1, 0.0, 0], [0.1, NAN, 30.0, 1.0, 1, 365.0, 0],
               [0.1, 0.05, 30.0, 1.0, 1, 365.0, 2]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_limit_share():
@@ -489,11 +489,11 @@ def gen_limit_share():
                 nash = (lo + hi) / 2
                 assert abs(nash - v) <= mp.mpf(10) ** -35 * M(S), (rO, rT, nash, v)
         add(fn, [rO, rT, S], "ok", [+v], src)
-    add(fn, [0.0, 0.0, 1.0], "indeterminate", [NAN], "both rates 0 (REFERENCE s.12)")
-    add(fn, [0.1, 0.05, -1.0], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (REFERENCE s.12)")
-    add(fn, [0.1, 0.05, 0.0], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (REFERENCE s.12)")
+    add(fn, [0.0, 0.0, 1.0], "indeterminate", [NAN], "both rates 0 (docs/models/complete-information.md s.1 edge cases)")
+    add(fn, [0.1, 0.05, -1.0], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (statuses in docs/reference/functions.md)")
+    add(fn, [0.1, 0.05, 0.0], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (statuses in docs/reference/functions.md)")
     for a in ([-0.1, 0.05, 1.0], [0.1, INF, 1.0], [0.1, 0.05, NAN]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def d0_of(d, p, b, g=0.0):
@@ -532,7 +532,7 @@ def add_tiny_rows(fn, make):
 
 def gen_breakdown_share():
     fn = "breakdown_share"
-    src = "Binmore, Rubinstein & Wolinsky (1986); Muthoo (1999) ch.4; REFERENCE s.4.2 timing"
+    src = "Binmore, Rubinstein & Wolinsky (1986); Muthoo (1999) ch.4; docs/models/complete-information.md s.4 timing"
     n = 0
     while n < 160:
         dO, dT = rfactor(), rfactor()
@@ -554,7 +554,7 @@ def gen_breakdown_share():
         add(fn, [dO, dT, p, bO, bT, S, opens], res[0], [res[1]], res[5] + "; " + src)
         n += 1
         note(fn, res[0])
-    # REFERENCE s.12 settlement example and edges
+    # the settlement example (negative fallbacks, docs/models/complete-information.md s.4 edge cases) and edges
     for a in ([1.0, 1.0, 0.5, -0.3, -0.2, 0.0, 1], [1.0, 1.0, 0.1, 0.2, 0.1, 1.0, 1],
               [0.95, 0.9, 0.05, 0.2, 0.1, 1.0, 1], [0.9, 0.8, 1.0, 0.25, 0.5, 0.75, 1],
               [0.9, 0.8, 1.0, 0.25, 0.5, 0.75, 0], [1.0, 0.9, 0.0, 0.3, 0.3, 1.0, 1],
@@ -567,15 +567,15 @@ def gen_breakdown_share():
         res = family_row(fn, Party(dO, bO), Party(dT, bT), M(p), M(S), op, (ndO, ndT), allow_ties=True)
         if res is None:
             continue
-        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.4.1/s.12 case")
+        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; docs/models/complete-information.md s.4 case")
     add_tiny_rows(fn, lambda dO, dT, S, op: (
         [dO, dT, 1e-9 if op else 0.0, 0.0, 0.0, S, op], Party(dO), Party(dT), 1e-9 if op else 0.0))
     for op in (0, 1):
-        add(fn, [1.0, 1.0, 0.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "p = 0 and both factors 1 (REFERENCE s.12)")
+        add(fn, [1.0, 1.0, 0.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "p = 0 and both factors 1 (docs/models/complete-information.md s.4 edge cases)")
     for a in ([0.9, 0.9, 1.5, 0.0, 0.0, 1.0, 1], [0.9, 0.9, -0.1, 0.0, 0.0, 1.0, 1],
               [0.9, 0.9, 0.1, NAN, 0.0, 1.0, 1], [0.9, 2.0, 0.1, 0.0, 0.0, 1.0, 1],
               [0.9, 0.9, 0.1, 0.0, -INF, 1.0, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_outside_option_share():
@@ -593,7 +593,7 @@ def gen_outside_option_share():
         S = rsurplus()
         opens = RNG.randrange(2)
         kind = n % 6
-        # options around the regime thresholds of REFERENCE s.5 (computed in doubles)
+        # options around the regime thresholds of docs/models/complete-information.md s.5 (computed in doubles)
         dA, dB = (dO, dT) if opens else (dT, dO)
         den = 1 - dA * dB if dA * dB < 1 else 1e-300
         UA, UB = S * (1 - dB) / den, S * (1 - dA) / den
@@ -630,22 +630,22 @@ def gen_outside_option_share():
         add(fn, [dO, dT, wO, wT, S, opens], res[0], [res[1]], res[5] + "; " + src)
         n += 1
         note(fn, res[0] + (":binding=%d" % res[3] if res[0] == "ok" else ""))
-    # REFERENCE s.11 rows 40-50 and 83
+    # check values 40-50 and 83 (tests/cpp/test_published.cpp)
     for a in ([0.9, 0.9, 0.0, 0.3, 1.0, 1], [0.9, 0.9, 0.0, 0.5, 1.0, 1], [0.9, 0.9, 0.5, 0.0, 1.0, 1],
               [0.5, 0.5, 0.4, 0.4, 1.0, 1], [0.95, 0.9, 0.2, 0.45, 1.0, 1], [0.9, 0.95, 0.45, 0.2, 1.0, 0],
               [0.9, 0.9, 0.0, 0.9 / 1.9, 1.0, 1], [0.9, 0.9, 0.6, 0.5, 1.0, 1]):
         dO, dT, wO, wT, S, op = a
         res = family_row(fn, Party(dO, w=wO), Party(dT, w=wT), 0, M(S), op,
                          no_deal_payoffs(Party(dO, w=wO), Party(dT, w=wT), 0), allow_ties=True)
-        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.11 case")
+        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; check value of tests/cpp/test_published.cpp")
     add_tiny_rows(fn, lambda dO, dT, S, op: (
         [dO, dT, -0.1 * abs(S), -0.2 * abs(S), S, op], Party(dO, w=-0.1 * abs(S)),
         Party(dT, w=-0.2 * abs(S)), 0.0))
     for op in (0, 1):
-        add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
+        add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (docs/models/complete-information.md s.1 edge cases)")
     for a in ([0.9, 0.9, NAN, 0.2, 1.0, 1], [0.9, 0.9, 0.1, INF, 1.0, 1], [1.1, 0.9, 0.1, 0.2, 1.0, 1],
               [0.9, 0.9, 0.1, 0.2, 1.0, -1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_inside_option_share():
@@ -675,17 +675,17 @@ def gen_inside_option_share():
         res = family_row(fn, Party(dO, g=gO), Party(dT, g=gT), 0, M(S), op, (M(gO), M(gT)))
         if res is None:
             continue
-        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; REFERENCE s.6/s.11 case")
+        add(fn, a, res[0], [res[1]], res[5] + "; " + src + "; docs/models/complete-information.md s.6: check value 51 of tests/cpp/test_published.cpp, its mirror, one patient side")
     add_tiny_rows(fn, lambda dO, dT, S, op: ([dO, dT, 0.0, 0.0, S, op], Party(dO), Party(dT), 0.0))
     for op in (0, 1):
-        add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
+        add(fn, [1.0, 1.0, 0.1, 0.2, 1.0, op], "indeterminate", [NAN], "both factors 1 (docs/models/complete-information.md s.1 edge cases)")
     for a in ([0.9, 0.9, NAN, 0.2, 1.0, 1], [0.9, -0.9, 0.1, 0.2, 1.0, 1], [0.9, 0.9, 0.1, 0.2, -INF, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_solve():
     fn = "solve"
-    src = "Rubinstein (1982); BRW (1986); Muthoo (1999) chs.3-6 (combined model, CATALOGUE.md)"
+    src = "Rubinstein (1982); BRW (1986); Muthoo (1999) chs.3-6 (combined model, docs/models/combined.md)"
     n = 0
     while n < 200:
         dO, dT = rfactor(), rfactor()
@@ -726,17 +726,17 @@ def gen_solve():
     add(fn, a, res[0], [res[1], res[2], res[3], res[4]], res[5] + "; " + src + "; issue 10 worked case")
     for op in (0, 1):
         add(fn, [1.0, 1.0, 0.0, 0.1, 0.1, 0.1, 0.2, -INF, -INF, 1.0, op], "indeterminate",
-            [NAN, NAN, NAN, 1], "p = 0 and both factors 1: every split is an SPE (REFERENCE s.12); a deal is rational")
+            [NAN, NAN, NAN, 1], "p = 0 and both factors 1: every split is an SPE (docs/models/combined.md); a deal is rational")
     for a in ([0.9, 0.9, 0.0, 0.0, 0.0, 0.0, 0.0, NAN, -INF, 1.0, 1],
               [0.9, 0.9, 2.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 1],
               [0.9, 0.9, 0.0, 0.0, 0.0, 0.0, 0.0, INF, -INF, 1.0, 1],
               [0.9, 0.9, 0.0, 0.0, 0.0, 0.0, 0.0, -INF, -INF, 1.0, 2]):
-        add(fn, a, "invalid", [NAN, NAN, NAN, NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN, NAN, NAN, NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_first_mover_advantage():
     fn = "first_mover_advantage"
-    src = "share as opener minus share as responder, each by %s; Rubinstein (1982); REFERENCE s.10"
+    src = "share as opener minus share as responder, each by %s; Rubinstein (1982); docs/models/complete-information.md s.10"
     n = 0
     while n < 110:
         dO, dT = rfactor(), rfactor()
@@ -757,10 +757,10 @@ def gen_first_mover_advantage():
     for a in ([0.8, 0.8, 1.0], [math.exp(-0.1 / 12), math.exp(-0.05 / 12), 1000.0]):
         r1 = family_row(fn, Party(a[0]), Party(a[1]), 0, M(a[2]), 1, (M(0), M(0)))
         r0 = family_row(fn, Party(a[0]), Party(a[1]), 0, M(a[2]), 0, (M(0), M(0)))
-        add(fn, a, "ok", [r1[1] - r0[1]], src % r1[5] + "; REFERENCE s.10/s.11 case")
-    add(fn, [1.0, 1.0, 1.0], "indeterminate", [NAN], "both factors 1 (REFERENCE s.12)")
+        add(fn, a, "ok", [r1[1] - r0[1]], src % r1[5] + "; docs/models/complete-information.md s.10 example or check value 78 of tests/cpp/test_published.cpp")
+    add(fn, [1.0, 1.0, 1.0], "indeterminate", [NAN], "both factors 1 (docs/models/complete-information.md s.1 edge cases)")
     for a in ([NAN, 0.9, 1.0], [0.9, 1.01, 1.0], [0.9, 0.9, INF]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ deadline (finite horizon)
@@ -891,7 +891,7 @@ def deadline_reference(dO, dT, T, bO, bT, S, own_opens):
 
 def gen_deadline_share():
     fn = "deadline_share"
-    src = "Stahl (1972); Gibbons (1992) s.2.1.D; REFERENCE s.3 (deadline payoffs at round T)"
+    src = "Stahl (1972); Gibbons (1992) s.2.1.D; docs/models/complete-information.md s.3 (deadline payoffs at round T)"
 
     def row(dO, dT, T, bO, bT, S, opens, extra=""):
         try:
@@ -954,18 +954,18 @@ def gen_deadline_share():
         dN = 1.0 - logu(1e-13, 1e-7)
         dO, dT = (u(0.05, 0.95), dN) if T % 2 == 0 else (dN, u(0.05, 0.95))
         row(dO, dT, T, 0.0, 0.0, rsurplus(), 1, "; a share below 1e-6 of the surplus")
-    # REFERENCE s.11 rows 23-32 (published 15-digit values; the BI must reproduce them)
+    # check values 23-32 of tests/cpp/test_published.cpp (15-digit values; the BI must reproduce them)
     published = [((0.9, 0.9, 1, 0.0, 0.0), 1.0), ((0.9, 0.9, 2, 0.0, 0.0), 0.1),
                  ((0.9, 0.9, 3, 0.0, 0.0), 0.91), ((0.9, 0.9, 4, 0.0, 0.0), 0.181),
                  ((0.9, 0.9, 10, 0.0, 0.0), 0.342800821), ((0.9, 0.9, 11, 0.0, 0.0), 0.6914792611),
                  ((0.95, 0.9, 5, 0.0, 0.0), 0.916525), ((0.95, 0.9, 6, 0.0, 0.0), 0.2586025),
                  ((0.9, 0.9, 3, 0.1, 0.2), 0.748), ((0.95, 0.9, 4, 0.1, 0.2), 0.26245)]
     for (dO, dT, T, bO, bT), want in published:
-        r = row(dO, dT, T, bO, bT, 1.0, 1, "; REFERENCE s.11 row")
+        r = row(dO, dT, T, bO, bT, 1.0, 1, "; check value of tests/cpp/test_published.cpp")
         assert r is not None and abs(r[1] - want) < 1e-14, (dO, dT, T, bO, bT, r, want)
     for a in ([0.9, 0.9, -1, 0.0, 0.0, 1.0, 1], [0.9, 0.9, 2.5, 0.0, 0.0, 1.0, 1],
               [0.9, NAN, 3, 0.0, 0.0, 1.0, 1], [0.9, 0.9, 3, 0.0, INF, 1.0, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ fixed costs
@@ -991,7 +991,7 @@ def fixed_cost_bi(cO, cT, S, own_opens, T):
 
 def gen_fixed_cost_share():
     fn = "fixed_cost_share"
-    src = "BI over T and T+1 rounds (both last movers) agree; Rubinstein (1982) fixed-cost case; REFERENCE s.2"
+    src = "BI over T and T+1 rounds (both last movers) agree; Rubinstein (1982) fixed-cost case; docs/models/complete-information.md s.2"
     n = 0
     while n < 110:
         S = RNG.choice([1.0, 1000.0, 1e-6, 1e9]) if RNG.random() < 0.5 else logu(1e-3, 1e6)
@@ -1004,7 +1004,7 @@ def gen_fixed_cost_share():
             S = -S
         opens = RNG.randrange(2)
         if S <= 0:
-            add(fn, [cO, cT, S, opens], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (REFERENCE s.12)")
+            add(fn, [cO, cT, S, opens], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (statuses in docs/reference/functions.md)")
             n += 1
             continue
         T = 2 * int(2 * S / abs(cO - cT)) + 11
@@ -1017,23 +1017,23 @@ def gen_fixed_cost_share():
         n += 1
     # equal costs: indeterminate below the surplus; at or above it the proposer takes all
     for a in ([0.1, 0.1, 1.0, 1], [0.1, 0.1, 1.0, 0], [0.0, 0.0, 1.0, 1]):
-        add(fn, a, "indeterminate", [NAN], "equal costs below the surplus: any split in [c, S] (Rubinstein 1982; REFERENCE s.2)")
+        add(fn, a, "indeterminate", [NAN], "equal costs below the surplus: any split in [c, S] (Rubinstein 1982; docs/models/complete-information.md s.2)")
     for a in ([1.5, 1.5, 1.0, 1], [1.5, 1.5, 1.0, 0], [0.2, 0.1, 1.0, 1], [0.1, 0.2, 1.0, 0],
               [20.0, 10.0, 1000.0, 1], [10.0, 20.0, 1000.0, 0]):
         cO, cT, S, op = a
         T = 2 * int(2 * S / abs(cO - cT)) + 11 if cO != cT else 11
         v1, v2 = fixed_cost_bi(cO, cT, S, op, T), fixed_cost_bi(cO, cT, S, op, T + 1)
         assert abs(v1 - v2) <= mp.mpf(10) ** -40 * S
-        add(fn, a, "ok", [v1], src.replace("T and", "T=%d and" % T) + "; REFERENCE s.11 rows 15-20")
+        add(fn, a, "ok", [v1], src.replace("T and", "T=%d and" % T) + "; check values 15-20 of tests/cpp/test_published.cpp")
     for a in ([-0.1, 0.2, 1.0, 1], [0.1, NAN, 1.0, 1], [0.1, 0.2, INF, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ delay cost
 def gen_delay_cost():
     fn = "delay_cost"
     src = ("stake minus the expected value of the deal one round later, (1-p) d stake + p fallback, "
-           "at 50 digits; REFERENCE s.10 (holding cost (1-d) s) and s.4.2 timing")
+           "at 50 digits; docs/models/complete-information.md s.4 (delay cost) and its timing")
     for i in range(110):
         f = rfactor()
         stake = rsurplus() * RNG.choice([1, 1, 1, -1])
@@ -1046,7 +1046,7 @@ def gen_delay_cost():
         E = (1 - M(p)) * M(f) * M(stake) + M(p) * M(fb)
         add(fn, [f, stake, p, fb], "ok", [M(stake) - E], src)
     for a in ([1.2, 1.0, 0.0, 0.0], [0.9, NAN, 0.0, 0.0], [0.9, 1.0, -0.5, 0.0], [0.9, 1.0, 0.1, INF]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ Nash bargaining
@@ -1094,16 +1094,16 @@ def gen_nash_share():
         if RNG.random() < 0.08:
             bo, bt = u(0.4, 0.8) * S, u(0.4, 0.8) * S
         if S <= bo + bt:
-            add(fn, [bo, bt, tau, S, ao, at], "no_deal", [bo], "S <= b_o + b_t: no deal, payoff b_o (REFERENCE s.7)")
+            add(fn, [bo, bt, tau, S, ao, at], "no_deal", [bo], "S <= b_o + b_t: no deal, payoff b_o (docs/models/complete-information.md s.8)")
         else:
             add(fn, [bo, bt, tau, S, ao, at], "ok", [nash_reference(bo, bt, tau, S, ao, at)], src)
         n += 1
     for a in ([0.1, 0.2, 0.5, 1.0, 1.0, 1.0], [0.1, 0.2, 0.3, 1.0, 1.0, 1.0], [0.0, 0.0, 0.5, 1.0, 0.5, 1.0],
               [0.1, 0.2, 0.5, 1.0, 0.5, 1.0]):
-        add(fn, a, "ok", [nash_reference(*a)], src + "; REFERENCE s.11 rows 54-57")
+        add(fn, a, "ok", [nash_reference(*a)], src + "; check values 54-57 of tests/cpp/test_published.cpp")
     for a in ([-0.1, 0.2, 0.5, 1.0, 0.5, 1.0], [0.1, 0.2, 1.5, 1.0, 1.0, 1.0], [0.1, 0.2, 0.5, 1.0, 0.0, 1.0],
               [0.1, 0.2, 0.5, 1.0, 1.5, 1.0], [NAN, 0.2, 0.5, 1.0, 1.0, 1.0]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ risk-averse alternating offers
@@ -1172,7 +1172,7 @@ def risk_averse_reference(dA, dB, uA, uB, p, bA, bB, S):
 
 def gen_risk_averse_share():
     fn = "risk_averse_share"
-    src = "root of the stationary conditions by bisection, 90 digits; BRW (1986); Muthoo (1999) chs.3-4; REFERENCE s.7"
+    src = "root of the stationary conditions by bisection, 90 digits; BRW (1986); Muthoo (1999) chs.3-4; docs/models/complete-information.md s.8"
     n = 0
     while n < 150:
         util = RNG.randrange(2)
@@ -1216,17 +1216,17 @@ def gen_risk_averse_share():
             v = M(S) - x
         add(fn, [dO, dT, cO, cT, util, p, bO, bT, S, opens], "ok", [v], src)
         n += 1
-    # REFERENCE s.11 rows 58 and 59
+    # check values 58 and 59 of tests/cpp/test_published.cpp
     d1, d2 = math.exp(-0.1), math.exp(-0.05)
     for a in ([0.9, 0.9, 0.5, 1.0, 0, 0.0, 0.0, 0.0, 1.0, 1], [d1, d2, 2.0, 0.5, 1, 0.0, 0.0, 0.0, 1.0, 1]):
         x, y = risk_averse_reference(a[0], a[1], Util(a[4], a[2]), Util(a[4], a[3]), a[5], a[6], a[7], a[8])
-        add(fn, a, "ok", [x], src + "; REFERENCE s.11 rows 58-59")
+        add(fn, a, "ok", [x], src + "; check values 58-59 of tests/cpp/test_published.cpp")
     for op in (0, 1):
-        add(fn, [1.0, 1.0, 0.5, 0.5, 0, 0.0, 0.0, 0.0, 1.0, op], "indeterminate", [NAN], "p = 0 and both factors 1 (REFERENCE s.12)")
+        add(fn, [1.0, 1.0, 0.5, 0.5, 0, 0.0, 0.0, 0.0, 1.0, op], "indeterminate", [NAN], "p = 0 and both factors 1 (docs/models/complete-information.md s.4 edge cases)")
     for a in ([0.9, 0.9, 1.5, 0.5, 0, 0.0, 0.0, 0.0, 1.0, 1], [0.9, 0.9, 0.5, 0.5, 2, 0.0, 0.0, 0.0, 1.0, 1],
               [0.9, 0.9, 0.5, 0.5, 0, 0.5, -0.1, 0.0, 1.0, 1], [0.9, 0.9, 0.0, 0.5, 1, 0.0, 0.0, 0.0, 1.0, 1],
               [0.9, 0.9, 0.5, NAN, 0, 0.0, 0.0, 0.0, 1.0, 1]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ more than two parties
@@ -1269,7 +1269,7 @@ def gen_group_share():
         if RNG.random() < 0.04:
             S = -S
         if S <= 0:
-            add(fn, [d, n, k, S], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (REFERENCE s.12)")
+            add(fn, [d, n, k, S], "no_deal", [0.0], "surplus <= 0: no deal, payoff 0 (statuses in docs/reference/functions.md)")
             n_rows += 1
             continue
         if d == 1.0 and n >= 2:
@@ -1302,9 +1302,9 @@ def gen_group_share():
         d, n, k, S = a
         with mp.workdps(90):
             vals = group_bi(M(d), n, M(S), 3000 * n + 1 if n <= 5 else 20)
-        add(fn, a, "ok", [+vals[k]], "BI T=%d; " % (3000 * n + 1 if n <= 5 else 20) + srcs + "; REFERENCE s.11 rows 61-64")
+        add(fn, a, "ok", [+vals[k]], "BI T=%d; " % (3000 * n + 1 if n <= 5 else 20) + srcs + "; check values 61-64 of tests/cpp/test_published.cpp")
     for a in ([0.9, 0, 0, 1.0], [0.9, 3, 3, 1.0], [0.9, 3, -1, 1.0], [1.1, 3, 0, 1.0], [0.9, 2.5, 0, 1.0]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_majority_share():
@@ -1338,10 +1338,10 @@ def gen_majority_share():
               [0.9, 5, 5, 0, 1.0]):
         d, n, q, role, S = a
         v = mp.mpf(S) / n
-        add(fn, a, "ok", [M(S) - (q - 1) * M(d) * v if role == 0 else M(d) * v], src + "; REFERENCE s.11 rows 65-70")
+        add(fn, a, "ok", [M(S) - (q - 1) * M(d) * v if role == 0 else M(d) * v], src + "; check values 65-70 of tests/cpp/test_published.cpp")
     for a in ([0.9, 5, 6, 0, 1.0], [0.9, 5, 1, 1, 1.0], [0.9, 0, 0, 0, 1.0], [0.9, 5, 3, 2, 1.0],
               [NAN, 5, 3, 0, 1.0], [0.9, 5, -1, 0, 1.0]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ inverse problems and sensitivities
@@ -1448,7 +1448,7 @@ def gen_implied_rate():
         add(fn, [1.0, 0.05, 30.0, op, 365.0, 0], "ok", [0.0], "forward model: the share 1 needs own rate 0; Rubinstein (1982)")
     for a in ([1.5, 0.05, 30.0, 1, 365.0, 0], [0.5, -0.05, 30.0, 1, 365.0, 0], [0.5, 0.05, 30.0, 1, 0.0, 0],
               [NAN, 0.05, 30.0, 1, 365.0, 0]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 def gen_share_sensitivity():
@@ -1476,14 +1476,14 @@ def gen_share_sensitivity():
         add(fn, [0.0, 0.0, 30.0, 0, 1.0, op, 365.0, 0], "indeterminate", [NAN], "both rates 0 (as share_from_rates)")
     for a in ([0.1, 0.05, 30.0, 2, 1.0, 1, 365.0, 0], [-0.1, 0.05, 30.0, 0, 1.0, 1, 365.0, 0],
               [0.1, 0.05, NAN, 0, 1.0, 1, 365.0, 0]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ screening
 def screening_profit_of_price(p1, vH, vL, q, ds, db):
     """Seller's profit for a first price p1 with the equilibrium continuation (double
     precision, for the grid check): the buyer types' best responses and the seller's
-    period-2 price given the posterior (Fudenberg & Tirole 1983 setting; REFERENCE s.9)."""
+    period-2 price given the posterior (Fudenberg & Tirole 1983 setting; docs/models/complete-information.md s.12)."""
     qh = vL / vH
     if p1 <= vL:
         return p1                                    # both types buy at once
@@ -1500,7 +1500,7 @@ def gen_screening_profit():
     fn = "screening_profit"
     src = ("max over the three candidate strategies (pool, screen, skim) at 50 digits, confirmed by "
            "a grid search over the first price with equilibrium continuation (tolerance 2e-4 v_H); "
-           "Fudenberg & Tirole (1983) setting; REFERENCE s.9")
+           "Fudenberg & Tirole (1983) setting; docs/models/complete-information.md s.12")
     for i in range(110):
         vH = rsurplus()
         vL = vH * (u(0.05, 1.0) if RNG.random() < 0.95 else 1.0)
@@ -1520,12 +1520,16 @@ def gen_screening_profit():
         add(fn, [vH, vL, q, ds, db], "ok", [best], src)
     for a in ([0.5, 1.0, 0.5, 0.9, 0.9], [1.0, 0.0, 0.5, 0.9, 0.9], [1.0, 0.5, 1.5, 0.9, 0.9],
               [1.0, 0.5, 0.5, NAN, 0.9], [1.0, -0.5, 0.5, 0.9, 0.9]):
-        add(fn, a, "invalid", [NAN], "domain rule (CATALOGUE.md bad-input rules)")
+        add(fn, a, "invalid", [NAN], "domain rule (docs/reference/functions.md bad-input rules)")
 
 
 # ================================================================ published check values
-# REFERENCE.md s.11 (15 significant digits there): the generator's own methods must
-# reproduce them.  (function, arguments, value, relative tolerance, REFERENCE row)
+# The check values: 50-digit mpmath values, each confirmed by an independent method
+# (backward induction over a long game, root finding, numerical maximisation with scipy,
+# a grid search) and written to 15 significant digits, numbered 9 to 84; the library is
+# checked against every one of them in tests/cpp/test_published.cpp, which names each
+# number.  The generator's own methods must reproduce those that fall in its tables.
+# (function, arguments, value, relative tolerance, check value number)
 PUBLISHED = [
     ("share", [0.5, 0.5, 1.0, 1], 0.666666666666667, 1e-14, 9),
     ("share_from_rates", [0.1, 0.05, 365.0, 1.0, 1, 365.0, 1], 0.350131861448953, 1e-14, 10),
@@ -1568,7 +1572,7 @@ PUBLISHED = [
     ("screening_profit", [1.0, 0.5, 0.3, 0.9, 0.8], 0.5, 1e-14, 73),
     ("screening_profit", [1.0, 0.5, 0.45, 0.9, 0.8], 0.5175, 1e-14, 71),
     ("screening_profit", [1.0, 0.5, 0.8, 0.9, 0.8], 0.78, 1e-14, 72),
-    ("first_mover_advantage", [0.8, 0.8, 1.0], 0.111111111111111, 1e-14, "s.10 example"),
+    ("first_mover_advantage", [0.8, 0.8, 1.0], 0.111111111111111, 1e-14, "complete-information.md s.10 example"),
     # the factors exp(-r/12) are rounded to doubles: 1e-13 covers that rounding
     ("first_mover_advantage", [math.exp(-0.1 / 12), math.exp(-0.05 / 12), 1000.0], 2.77776974025657, 1e-13, 78),
     ("share", [1.0, 0.9, 1.0, 1], 1.0, 1e-14, 79),
@@ -1585,7 +1589,7 @@ def check_published():
         assert hits, ("published row missing", fn, args)
         got = mp.mpf(hits[0][2][0])
         assert abs(got - want) <= tol * max(abs(mp.mpf(want)), mp.mpf(1)), (fn, args, got, want, ref)
-    print("published check values reproduced: %d (REFERENCE s.11)" % len(PUBLISHED))
+    print("published check values reproduced: %d (tests/cpp/test_published.cpp)" % len(PUBLISHED))
 
 
 # ================================================================ main

@@ -24,7 +24,7 @@ from test_samples import Cells, close
 
 NAME = "licence_unknown_value.fods"
 PATH, FIRST, LAST, NONE_ROW = 43, 59, 70, 71
-REFERENCE = os.path.join(ROOT, "tests", "reference", "private", "offer_path.csv")
+OFFER_PATH_TABLE = os.path.join(ROOT, "tests", "reference", "private", "offer_path.csv")
 
 
 def factors(c):
@@ -141,7 +141,7 @@ def test_reference_rows_of_the_gap_example(book):
         c.cell(cell).setValue(x)
     c.set("B14", 5)
     assert c.v("B39") == c.v("B40") == 0.9
-    with open(REFERENCE, newline="") as fh:
+    with open(OFFER_PATH_TABLE, newline="") as fh:
         rows = [r for r in csv.DictReader(fh) if r["private_low"] == "0.2"
                 and r["private_high"] == "1.2" and r["offerer_factor"] == "0.9"
                 and r["responder_factor"] == "0.9" and r["known_value"] == "0.0"

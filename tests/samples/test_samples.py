@@ -219,8 +219,8 @@ def test_synergy_independent_references(book):
         assert close(c.v(col + "20") + c.v(col + "21"), S)
         assert close(c.v(col + "24"), x_open - x_resp, rel=1e-9, absolute=1e-10)
         if c.s(col + "26") == "none":
-            # the responder is offered exactly the value of waiting (BRW 1986; REFERENCE
-            # s.10), so the opener's loss from one round of delay is the first-mover
+            # the responder is offered exactly the value of waiting (BRW 1986;
+            # complete-information.md s.10), so the opener's loss from one round of delay is the first-mover
             # advantage: p (x - w) + (1 - p)(1 - d) x = x - (p w + (1 - p) d x)
             assert close(c.v(col + "23"), c.v(col + "24"), rel=1e-9)
         ref = rubinstein_rates(r_o, r_t, days, S, opens, basis)
@@ -351,7 +351,8 @@ def test_supply_inside_option_edit(book):
 
 def test_supply_days_edit(book):
     """Longer gaps between offers widen the first-mover advantage (Rubinstein 1982;
-    REFERENCE s.10: it vanishes as offers become frequent): the column rises with days."""
+    docs/models/complete-information.md s.10: it vanishes as offers become frequent): the
+    column rises with days."""
     c = Cells(book("supply_renegotiation.fods"))
     fma = [c.v("F%d" % r) for r in range(28, 41)]
     assert all(a < b for a, b in zip(fma, fma[1:]))
@@ -413,8 +414,8 @@ def test_licence_equals_python_package_and_backward_induction(book):
 
 def test_licence_rounds_edit(book):
     """One more round before the deadline hands us the last offer: our share jumps up
-    (REFERENCE s.3: the last-offer advantage does not vanish); the table grows by a
-    row; both match backward induction and the package."""
+    (docs/models/complete-information.md s.3: the last-offer advantage does not vanish);
+    the table grows by a row; both match backward induction and the package."""
     c = Cells(book("licence_deadline.fods"))
     n = int(c.v("B11"))
     assert c.s("B21") == "they"
@@ -441,7 +442,8 @@ def test_licence_breakdown_edit(book):
 # ---- 5. without the add-in the formulas survive -----------------------------------------
 def test_formulas_kept_without_addin(office):
     """In an office without the add-in every add-in call is still a formula with the
-    add-in's stored name (STYLE.md s.6) and shows #NAME? rather than a stale number."""
+    add-in's stored name (addin/README.md, "Stable names") and shows #NAME? rather than a
+    stale number."""
     counts = {}
     for name in SHEETS:
         doc = office.load(os.path.join(SAMPLES, name))
@@ -465,8 +467,8 @@ def test_formulas_kept_without_addin(office):
 
 # ---- 6. the main job fails loudly ----------------------------------------------------------
 def test_error_cell_is_reported(office, tmp_path):
-    """A sheet with an invalid input (negative days between offers: CATALOGUE.md, bad
-    input -> Err:502 in Calc) is refused, naming the sheet, the cell and the code."""
+    """A sheet with an invalid input (negative days between offers: docs/reference/
+    functions.md, bad input -> Err:502 in Calc) is refused, naming the sheet, the cell and the code."""
     broken = str(tmp_path / "broken_synergy.fods")
     doc = office.load(os.path.join(SAMPLES, "synergy_split.fods"))
     try:

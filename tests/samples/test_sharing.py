@@ -113,7 +113,8 @@ def test_copy_has_the_live_values_and_no_addin_call(book, bare_office, copies, n
 
 def test_a_copy_refuses_an_error_cell(book):
     """A frozen copy never turns an error into a plausible number: freezing a sheet with
-    an invalid input (negative days: Err:502, CATALOGUE.md bad input) is refused."""
+    an invalid input (negative days: Err:502, docs/reference/functions.md bad input) is
+    refused."""
     doc = book("synergy_split.fods")
     doc.Sheets.getByIndex(0).getCellRangeByName("C14").setValue(-5)
     doc.calculateAll()

@@ -10,11 +10,11 @@ The sheet "Summary" has B1 = AND of every check.  tests/sheets/run_sheets.py loa
 each file in a headless office with the add-in installed, recalculates, and asserts
 every check cell and every expected error code.
 
-Expected values come from REFERENCE.md section 11 (check values, mpmath 50 digits,
-with the row number), from a published example quoted in REFERENCE.md, or are
-computed here with mpmath at 50 digits from the published formula named beside the
-case.  The error cases follow CATALOGUE.md "What every function must do with bad
-input" and the error mapping in addin/README.md.
+Expected values are the numbered check values of tests/cpp/test_published.cpp (mpmath
+50 digits, each confirmed by an independent method), published examples of
+docs/models/complete-information.md, or are computed here with mpmath at 50 digits from
+the published formula named beside the case.  The error cases follow the bad-input rules
+of docs/reference/functions.md and the error mapping in addin/README.md.
 
 Run with the project venv's Python (it has mpmath and the counteroffer package, whose
 table gives the stored method names) and the repository root on PYTHONPATH:
@@ -36,7 +36,7 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 ERR = {"Err:502": 502, "#N/A": 32767, "#NUM!": 503, "Err:523": 523, "#VALUE!": 519}
 
 
-# ---- mpmath references for functions without a row in REFERENCE.md s.11 --------------
+# ---- mpmath references for functions without a check value in test_published.cpp -----
 def factor_eff(rate, days, basis=365):  # (1 + r)^(-days/basis): standard compounding
     return mp.power(1 + mp.mpf(rate), -mp.mpf(days) / basis)
 
@@ -46,7 +46,8 @@ def factor_cont(rate, days, basis=365):  # exp(-r days/basis): Muthoo (1999) s.3
 
 
 def share_rates(r1, r2, days, basis=365, cont=False, opens=True):
-    """Rubinstein (1982) share with delta = factor(rate): REFERENCE s.1."""
+    """Rubinstein (1982) share with delta = factor(rate): docs/models/complete-information.md
+    s.1."""
     f = factor_cont if cont else factor_eff
     d1, d2 = f(r1, days, basis), f(r2, days, basis)
     x = (1 - d2) / (1 - d1 * d2)
@@ -65,7 +66,7 @@ def implied_rate_cont(share, r2, days):
     return mp.findroot(lambda r: share_rates(r, r2, days, cont=True) - share, 0.1)
 
 
-R11 = "REFERENCE.md s.11 row %d (mpmath 50 digits)"
+R11 = "check value %d of tests/cpp/test_published.cpp (mpmath 50 digits)"
 MPM = "mpmath 50 digits: %s"
 
 # (case, formula, expected number or error text, source[, tolerance])
@@ -77,10 +78,11 @@ VALUES = [
     ("Rubinstein, equal factors", "=DEALSHARE(0.5;0.5)", 2 / 3.0, R11 % 9),
     ("Rubinstein, d=(0.95,0.9)", "=DEALSHARE(0.95;0.9)", 0.689655172413793, R11 % 14),
     ("Rubinstein, own responds", "=DEALSHARE(0.5;0.5;1;FALSE())", 1 / 3.0,
-     "REFERENCE.md s.1: responder gets d x* = 1/3"),
+     "docs/models/complete-information.md s.1: responder gets d x* = 1/3"),
     ("own_opens as text \"false\"", "=DEALSHARE(0.5;0.5;1;\"false\")", 1 / 3.0,
-     "REFERENCE.md s.1; CATALOGUE.md: booleans TRUE/FALSE"),
-    ("own_opens as 0", "=DEALSHARE(0.5;0.5;1;0)", 1 / 3.0, "REFERENCE.md s.1; CATALOGUE.md: 1/0"),
+     "docs/models/complete-information.md s.1; docs/reference/functions.md: booleans TRUE/FALSE"),
+    ("own_opens as 0", "=DEALSHARE(0.5;0.5;1;0)", 1 / 3.0,
+     "docs/models/complete-information.md s.1; docs/reference/functions.md: 1/0"),
     ("money surplus", "=DEALSHARE(0.95;0.9;1000)", 689.655172413793, R11 % 14 + " x 1000"),
     ("one patient side", "=DEALSHARE(1;0.9)", 1.0, R11 % 79),
     ("other side patient", "=DEALSHARE(0.9;1)", 0.0, R11 % 80),
@@ -135,7 +137,7 @@ VALUES = [
      "probability (3/4)^2/2 = 9/32"),
     ("reason: a factor outside 0 to 1", '=DEALREASON("DEALSHARE";1.2;0.95)',
      Text("DEALSHARE: own_factor = 1.2 is outside 0 to 1"),
-     "the library's reason (cto_explain); CATALOGUE.md: a factor is in [0, 1]"),
+     "the library's reason (cto_explain); docs/reference/functions.md: a factor is in [0, 1]"),
     ("reason: a rate typed as 8 for 8%", '=DEALREASON("dealsharerate";8;0.05;30)',
      Text("DEALSHARERATE: ok, but own_rate = 8 is outside the usual 0 to 1: above 100% a "
           "year: a percentage typed as a whole number? (8% is 0.08)"),
@@ -144,7 +146,7 @@ VALUES = [
      Text("DEALSOLVE: no rational deal (#N/A in Calc): the surplus 100 does not exceed "
           "what the parties get without a deal (own 70, other 60); the result is own's "
           "no-deal payoff"),
-     "walk-away values 70 + 60 above the surplus 100: no deal (CATALOGUE.md)"),
+     "walk-away values 70 + 60 above the surplus 100: no deal (docs/reference/functions.md)"),
     ("reason: ok", '=DEALREASON("DEALSHARE";0.9;0.95)', Text("DEALSHARE: ok"),
      "the library's reason for a valid call"),
     ("reason: an unknown name", '=DEALREASON("DEALNONE";1)',
@@ -162,11 +164,11 @@ VALUES = [
     ("fixed costs, money", "=DEALFIXEDCOST(20;10;1000)", 10.0, R11 % 19),
     ("fixed costs, money, other opens role", "=DEALFIXEDCOST(10;20;1000)", 1000.0, R11 % 20),
     ("delay cost, holding cost", "=DEALDELAYCOST(0.9;100)", 10.0,
-     "REFERENCE.md s.10: holding cost (1 - d) s = 0.1 x 100"),
+     "docs/models/complete-information.md s.4: delay cost (1 - d) s = 0.1 x 100"),
     ("delay cost with breakdown", "=DEALDELAYCOST(0.9;100;0.1;20)", 17.0,
-     "CATALOGUE.md formula s - ((1-p) d s + p b) = 100 - (81 + 2)"),
+     "docs/reference/functions.md formula s - ((1-p) d s + p b) = 100 - (81 + 2)"),
     ("first-mover advantage", "=DEALFIRSTMOVER(0.8;0.8)", 1 / 9.0,
-     "REFERENCE.md s.10 example: 1/9"),
+     "docs/models/complete-information.md s.10 example: 1/9"),
     ("first-mover, monthly offers",
      "=DEALFIRSTMOVER(DEALFACTOR(0.1;1;12;TRUE());DEALFACTOR(0.05;1;12;TRUE());1000)",
      2.77776974025657, R11 % 78),
@@ -178,7 +180,7 @@ VALUES = [
     ("risk averse, exponential", "=DEALRISKAVERSE(EXP(-0.1);EXP(-0.05);2;0.5;\"exponential\")",
      0.324276325976081, R11 % 59),
     ("choice text any case", "=DEALRISKAVERSE(EXP(-0.1);EXP(-0.05);2;0.5;\"EXPONENTIAL\")",
-     0.324276325976081, R11 % 59 + "; CATALOGUE.md: choices case-insensitive"),
+     0.324276325976081, R11 % 59 + "; docs/reference/functions.md: choices case-insensitive"),
     ("group, proposer", "=DEALGROUP(0.9;3)", 0.369003690036900, R11 % 61),
     ("group, last responder", "=DEALGROUP(0.9;3;2)", 0.298892988929889, R11 % 62),
     ("group of 5, proposer", "=DEALGROUP(0.95;5)", 0.221024698128612, R11 % 63),
@@ -208,7 +210,7 @@ VALUES = [
     ("screening, pool", "=DEALSCREEN(1;0.5;0.3;0.9;0.8)", 0.5, R11 % 73),
     ("call probe", "=DEALCALLPROBE(3;4)", 3.0, "the probe returns its first argument"),
     ("inline arrays, one call", "=SUMPRODUCT(DEALSHARE({0.5;0.95};{0.5;0.9}))",
-     2 / 3.0 + 0.689655172413793, R11 % 9 + " + row 14"),
+     2 / 3.0 + 0.689655172413793, R11 % 9 + " + check value 14"),
     ("a single value applies to every element", "=SUMPRODUCT(DEALSHARE({0.5;0.5};0.5))",
      4 / 3.0, R11 % 9 + " twice"),
     ("outcome form, second case", "=INDEX(DEALSOLVEOUTCOME({0.5|0.95};{0.5|0.9});2;1)",
@@ -218,60 +220,67 @@ VALUES = [
      R11 % 14 + ": 1 - x*"),
 ]
 
-BAD = "CATALOGUE.md: bad input -> invalid argument"
+BAD = "docs/reference/functions.md: bad input -> invalid argument"
 ERRORS = [
     ("factor above 1", "=DEALSHARE(1.5;0.5)", "Err:502", BAD + " (factor outside [0,1])"),
     ("negative factor", "=DEALSHARE(-0.1;0.5)", "Err:502", BAD),
     ("text where a number is needed", "=DEALSHARE(\"half\";0.5)", "Err:502",
-     "CATALOGUE.md: a text cell where a number is required is an error value"),
+     "docs/reference/functions.md: a text cell where a number is required is an error value"),
     ("text cell where a number is needed", "=DEALSHARE(H2;0.5)", "Err:502",
-     "CATALOGUE.md: text cell -> error value", {"H2": "abc"}),
-    ("bad boolean", "=DEALSHARE(0.5;0.5;1;2)", "Err:502", "CATALOGUE.md: booleans 1/0"),
+     "docs/reference/functions.md: text cell -> error value", {"H2": "abc"}),
+    ("bad boolean", "=DEALSHARE(0.5;0.5;1;2)", "Err:502", "docs/reference/functions.md: booleans 1/0"),
     ("bad boolean text", "=DEALSHARE(0.5;0.5;1;\"maybe\")", "Err:502",
-     "CATALOGUE.md: booleans TRUE/FALSE"),
+     "docs/reference/functions.md: booleans TRUE/FALSE"),
     ("both factors 1", "=DEALSHARE(1;1)", "#NUM!",
-     "REFERENCE.md s.12: both factors 1 -> indeterminate"),
+     "docs/models/complete-information.md s.1 edge cases: both factors 1 -> indeterminate"),
     ("negative surplus", "=DEALSHARE(0.9;0.9;-1)", "#N/A",
-     R11 % 84 + "; REFERENCE.md s.12: no agreement"),
+     R11 % 84 + "; docs/models/complete-information.md s.1 edge cases: no agreement"),
     ("zero surplus", "=DEALSHARE(0.9;0.9;0)", "#N/A", "header: no deal when surplus <= 0"),
     ("negative days", "=DEALFACTOR(0.05;-1)", "Err:502", BAD + " (negative days)"),
     ("zero basis", "=DEALFACTOR(0.05;30;0)", "Err:502", BAD + " (basis must be > 0)"),
-    ("both rates 0", "=DEALSHARELIMIT(0;0)", "#NUM!", "REFERENCE.md s.12: r_A = r_B = 0"),
+    ("both rates 0", "=DEALSHARELIMIT(0;0)", "#NUM!",
+     "docs/models/complete-information.md s.1 edge cases: r_A = r_B = 0"),
     ("days 0 with rates", "=DEALSHARERATE(0.1;0.05;0)", "#NUM!",
      "header: rho_own = rho_oth = 0 is indeterminate"),
     ("breakdown prob above 1", "=DEALBREAKDOWN(0.9;0.9;1.5;0;0)", "Err:502", BAD),
     ("breakdown, no gains from trade", "=DEALBREAKDOWN(0.9;0.9;1;0.6;0.5)", "#N/A",
-     "REFERENCE.md s.12: b_A + b_B >= pie -> no agreement (p = 1: no-deal values = b)"),
+     "docs/models/complete-information.md s.4 edge cases: b_A + b_B >= pie -> no agreement "
+     "(p = 1: no-deal values = b)"),
     ("options exceed the surplus", "=DEALOUTSIDE(0.9;0.9;0.6;0.5)", "#N/A",
-     R11 % 83 + "; REFERENCE.md s.12"),
+     R11 % 83 + "; docs/models/complete-information.md s.5 edge cases"),
     ("inside options exceed the surplus", "=DEALINSIDE(0.9;0.9;0.6;0.5)", "#N/A",
-     "REFERENCE.md s.12: g_A + g_B >= pie"),
-    ("solve indeterminate", "=DEALSOLVE(1;1)", "#NUM!", "REFERENCE.md s.12"),
+     "docs/models/complete-information.md s.6: g_A + g_B >= pie"),
+    ("solve indeterminate", "=DEALSOLVE(1;1)", "#NUM!",
+     "docs/models/combined.md: p = 0 and both factors 1"),
     ("rounds not whole", "=DEALDEADLINE(0.9;0.9;2.5)", "Err:502",
-     "CATALOGUE.md: counts must be whole numbers"),
-    ("rounds negative", "=DEALDEADLINE(0.9;0.9;-1)", "Err:502", "REFERENCE.md s.12: reject T < 0"),
+     "docs/reference/functions.md: counts must be whole numbers"),
+    ("rounds negative", "=DEALDEADLINE(0.9;0.9;-1)", "Err:502",
+     "docs/models/complete-information.md s.3 edge cases: reject T < 0"),
     ("no rounds", "=DEALDEADLINE(0.9;0.9;0)", "#N/A",
-     "REFERENCE.md s.12: T = 0 means no bargaining (no deal)"),
-    ("equal fixed costs", "=DEALFIXEDCOST(0.1;0.1)", "#NUM!", R11 % 21 + "-22: any x in [c,1]"),
+     "docs/models/complete-information.md s.3 edge cases: T = 0 means no bargaining (no deal)"),
+    ("equal fixed costs", "=DEALFIXEDCOST(0.1;0.1)", "#NUM!",
+     "check values 21-22 of tests/cpp/test_published.cpp: any x in [c,1] "
+     "(docs/models/complete-information.md s.2)"),
     ("negative cost", "=DEALFIXEDCOST(-0.1;0.1)", "Err:502", BAD),
-    ("Nash, no gains", "=DEALNASH(0.6;0.5)", "#N/A", "REFERENCE.md s.12: no gains from trade"),
+    ("Nash, no gains", "=DEALNASH(0.6;0.5)", "#N/A",
+     "docs/reference/functions.md (nash_share statuses): no gains from trade"),
     ("Nash weight above 1", "=DEALNASH(0.1;0.2;1.2)", "Err:502", BAD),
     ("unknown utility", "=DEALRISKAVERSE(0.9;0.9;0.5;1;\"cubic\")", "Err:502",
-     "CATALOGUE.md: choices are \"power\" or \"exponential\""),
+     "docs/reference/functions.md: choices are \"power\" or \"exponential\""),
     ("curvature 0", "=DEALRISKAVERSE(0.9;0.9;0;1)", "Err:502", "header: curvature in (0, 1]"),
     ("parties not whole", "=DEALGROUP(0.9;3.5)", "Err:502",
-     "CATALOGUE.md: 3.5 parties is an error, not 3"),
-    ("no parties", "=DEALGROUP(0.9;0)", "Err:502", "CATALOGUE.md: parties < 1 is invalid"),
+     "docs/reference/functions.md: 3.5 parties is an error, not 3"),
+    ("no parties", "=DEALGROUP(0.9;0)", "Err:502", "docs/reference/functions.md: parties < 1 is invalid"),
     ("position outside", "=DEALGROUP(0.9;3;3)", "Err:502", "header: position in [0, n-1]"),
     ("group indeterminate", "=DEALGROUP(1;3)", "#NUM!", "header: d = 1 and n >= 2"),
     ("quota above parties", "=DEALMAJORITY(0.9;5;6)", "Err:502",
-     "REFERENCE.md s.12: validate 1 <= q <= n"),
+     "docs/models/complete-information.md s.9: validate 1 <= q <= n"),
     ("unknown role", "=DEALMAJORITY(0.9;5;3;\"chair\")", "Err:502",
-     "CATALOGUE.md: role \"proposer\" or \"partner\""),
+     "docs/reference/functions.md: role \"proposer\" or \"partner\""),
     ("unreachable share", "=DEALIMPLIEDFACTOR(0.05;0.9)", "Err:502",
      "header: own opens needs s >= 1 - d_oth"),
     ("unknown wrt", "=DEALSENSITIVITY(0.08;0.12;30;\"both\")", "Err:502",
-     "CATALOGUE.md: wrt \"own\" or \"other\""),
+     "docs/reference/functions.md: wrt \"own\" or \"other\""),
     ("screening, low above high", "=DEALSCREEN(0.5;1;0.5;0.9;0.8)", "Err:502",
      "header: high_value >= low_value"),
     ("probe with text", "=DEALCALLPROBE(\"x\";1)", "Err:502", "the probe needs numbers"),
@@ -286,10 +295,10 @@ ERRORS = [
 ARRAY_ROWS = [
     (0.5, 0.5, 1, 2 / 3.0, R11 % 9),
     (0.95, 0.9, 1, 0.689655172413793, R11 % 14),
-    (1, 1, 1, "#NUM!", "REFERENCE.md s.12: indeterminate"),
+    (1, 1, 1, "#NUM!", "docs/models/complete-information.md s.1 edge cases: indeterminate"),
     (1.5, 0.5, 1, "Err:502", BAD),
-    (None, 0.5, 1, "Err:502", "CATALOGUE.md: an empty cell where a number is required"),
-    ("abc", 0.5, 1, "Err:502", "CATALOGUE.md: a text cell where a number is required"),
+    (None, 0.5, 1, "Err:502", "docs/reference/functions.md: an empty cell where a number is required"),
+    ("abc", 0.5, 1, "Err:502", "docs/reference/functions.md: a text cell where a number is required"),
     (0.9, 0.9, -1, "#N/A", R11 % 84),
     (0.95, 0.9, 1000, 689.655172413793, R11 % 14 + " x 1000"),
 ]

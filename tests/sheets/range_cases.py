@@ -2,13 +2,15 @@
 DEALRANGE, DEALRANGEOUTCOME, DEALSWING and DEALOFFERPATH.  Written by make_sheets.py.
 
 Expected values come from outside the project: mpmath at 50 digits (the Rubinstein
-share at the rates, the inverse CDFs of REFERENCE-PRIVATE C.1, a quadrature for a mean),
-the check values of REFERENCE-PRIVATE C.8.1, the closed form of another function in the
+share at the rates, the inverse CDFs of docs/models/ranges.md, a quadrature for a mean),
+the check values D1-D16 of tests/cpp/test_range_distributions.cpp, the closed form of
+another function in the
 sheet (DEALSHARERATE), and the 50-digit reference row of the two-round offer path
 (tests/reference/private/offer_path.csv, first row).  A quantile of own share is the
-share at the input's quantile because the share is monotone in each rate
-(REFERENCE-PRIVATE C.8.3 uses the same fact); its tolerance is the three significant
-digits the estimator targets (REFERENCE-PRIVATE C.6), or the reported 95% half-width.
+share at the input's quantile because the share is monotone in each rate (the exact
+quantiles of docs/models/ranges.md, "The two examples", rest on the same fact); its
+tolerance is the three significant digits the estimator targets (its digit target), or
+the reported 95% half-width.
 """
 import csv
 import os
@@ -26,7 +28,7 @@ class Text(str):
 
 
 def tri_inv(lo, m, hi, u):
-    """Triangular inverse CDF, REFERENCE-PRIVATE C.1."""
+    """Triangular inverse CDF, docs/models/ranges.md "Input distributions"."""
     lo, m, hi, u = (mp.mpf(x) for x in (lo, m, hi, u))
     fm = (m - lo) / (hi - lo)
     if u < fm:
@@ -53,8 +55,8 @@ def range_values(share_rates, text):
     outcome = "DEALRANGEOUTCOME(0.08;{0.04;0.16};30)"
     rub = "mpmath 50 digits: Rubinstein (1982) share at "
     mono = ("; own share rises with the other's rate, so its quantile is the share at the "
-            "rate's quantile (REFERENCE-PRIVATE C.8.3); tolerance: 3 significant digits "
-            "(C.6)")
+            "rate's quantile (as for the exact quantiles of docs/models/ranges.md); "
+            "tolerance: 3 significant digits (the digit target)")
     median = share_rates(0.08, 0.10, 30)
     mean = mp.quad(lambda r: share_rates(0.08, r, 30), [0.04, 0.16]) / mp.mpf("0.12")
     p_tri = tri_inv(0.04, 0.08, 0.16, 0.1)
@@ -70,43 +72,45 @@ def range_values(share_rates, text):
          0.0, "the closed form of DEALSHARERATE (Rubinstein 1982; Muthoo 1999 s.3.2)", 1e-15),
         ("degenerate ranges equal the fixed input exactly",
          "=DEALRANGE({0.08;0.08};{0.12;0.12;0.12};30)-DEALRANGE(0.08;0.12;30)", 0.0,
-         "issue 12 and REFERENCE-PRIVATE C.7a: low = high is the fixed-input result exactly",
+         "issue 12 and docs/models/ranges.md: low = high is the fixed-input result exactly",
          0.0),
         ("one uniform rate: the median", "=" + uni, median,
          rub + "the median 0.10 of U(0.04, 0.16)" + mono, 1e-3),
         ("the median within its reported 95% half-width",
          "=ABS(%s-DEALSHARERATE(0.08;0.1;30))<=INDEX(%s;2;3)" % (uni, outcome), 1.0,
-         "REFERENCE-PRIVATE C.4 (95% interval) around the share at the median rate "
+         "docs/models/ranges.md (95% half-width) around the share at the median rate "
          "(DEALSHARERATE; monotone share)", 0.0),
         ("one triangular rate at p = 0.1",
          "=DEALRANGE(0.08;{0.04;0.08;0.16};30%s0.1;\"Triangular\")" % SKIP_TO_PROB,
          share_rates(0.08, p_tri, 30),
-         rub + "the triangular(0.04, 0.08, 0.16) 10% point (REFERENCE-PRIVATE C.1)" + mono,
+         rub + "the triangular(0.04, 0.08, 0.16) 10% point (docs/models/ranges.md)" + mono,
          2e-3),
         ("PERT own rate (default shape), median",
          "=DEALRANGE({0.05;0.1;0.2};0.05;30)", share_rates(mp.mpf("0.106371876050618"), 0.05, 30),
-         rub + "REFERENCE-PRIVATE C.8.1 D10 (PERT(0.05, 0.10, 0.20) at u = 0.5)" + mono, 1e-3),
+         rub + "check value D10 (PERT(0.05, 0.10, 0.20) at u = 0.5)" + mono, 1e-3),
         ("PERT own rate at p = 0.9",
          "=DEALRANGE({0.05;0.1;0.2};0.05;30%s0.9)" % SKIP_TO_PROB,
          share_rates(mp.mpf("0.0729541540514719"), 0.05, 30),
-         rub + "C.8.1 D9 (PERT(0.05, 0.10, 0.20) at u = 0.1): own share falls with own rate, "
-         "so its 90% point is the share at the rate's 10% point; 3 digits (C.6)", 2e-3),
+         rub + "check value D9 (PERT(0.05, 0.10, 0.20) at u = 0.1): own share falls with own "
+         "rate, so its 90% point is the share at the rate's 10% point; 3 digits (the digit "
+         "target)", 2e-3),
         ("outcome: the status word", "=INDEX(%s;16;2)" % outcome, text("ok"),
-         "cto_status_name(CTO_OK); 3 digits reached (REFERENCE-PRIVATE C.6)"),
+         "cto_status_name(CTO_OK); 3 digits reached (docs/models/ranges.md digit target)"),
         ("outcome: the label of the median", "=INDEX(%s;2;1)" % outcome,
          text("own share, p = 0.5"), "addin/README.md: DEALRANGEOUTCOME layout"),
         ("outcome: other share median = 1 - own median", "=INDEX(%s;5;2)" % outcome,
-         1 - median, "surplus 1: other = 1 - own in every draw (REFERENCE s.1)" + mono, 1e-3),
+         1 - median,
+         "surplus 1: other = 1 - own in every draw (complete-information.md s.1)" + mono, 1e-3),
         ("outcome: the mean", "=INDEX(%s;7;2)" % outcome, mean,
          "mpmath quadrature of the share over U(0.04, 0.16)", 1e-4),
         ("outcome: every draw a rational deal", "=INDEX(%s;9;2)" % outcome, 1.0,
-         "positive surplus, no walk-away values: always a deal (REFERENCE s.12)", 0.0),
+         "positive surplus, no walk-away values: always a deal (complete-information.md s.1)", 0.0),
         ("outcome: replicates", "=INDEX(%s;14;2)" % outcome, 16.0,
-         "CATALOGUE.md Additions: replicates = 16 by default", 0.0),
+         "docs/models/ranges.md options: replicates = 16 by default", 0.0),
         ("outcome: one uncertain input", "=INDEX(%s;15;2)" % outcome, 1.0,
          "one input given as a range", 0.0),
-        ("outcome: spec version", "=INDEX(%s;17;2)" % outcome, 1.0,
-         "REFERENCE-PRIVATE C.7 item 7: the spec version of the rules", 0.0),
+        ("outcome: spec version", "=INDEX(%s;17;2)" % outcome, 2.0,
+         "docs/models/ranges.md, Reproducibility: the spec version of the rules", 0.0),
         ("swing: the larger swing first", "=INDEX(%s;1;1)" % swing, text(order[0]),
          rub + "each input's ends, the other at its mode; sorted by swing (Clemen & Reilly "
          "2014 ch.5)"),
@@ -128,7 +132,7 @@ def range_matrix_rows(share_rates, first_row):
         rate = mp.mpf("0.04") + mp.mpf(p) * mp.mpf("0.12")
         row = {"case": "quantile column, p = %g" % p, "expected": float(share_rates(0.08, rate, 30)),
                "source": "mpmath 50 digits: the share at the uniform rate's %g point; monotone "
-                         "share (REFERENCE-PRIVATE C.8.3); 3 digits (C.6)" % p,
+                         "share; 3 digits (docs/models/ranges.md digit target)" % p,
                "tol": 2e-3, "inputs": {"H": p}}
         if i == 0:
             row["formula"] = "=DEALRANGE(0.08;{0.04;0.16};30%sH%d:H%d)" % (
@@ -144,7 +148,7 @@ def offer_values():
     path = "DEALOFFERPATH(0;1;0.9;0.9;2)"
     src = ("tests/reference/private/offer_path.csv row 1 (50-digit backward induction; "
            "Sobel & Takahashi 1983): ")
-    uni = "; responder values uniform on [0, 1]: P = 1 - cutoff (REFERENCE-PRIVATE B.1)"
+    uni = "; responder values uniform on [0, 1]: P = 1 - cutoff (private-information.md s.2.1)"
     return [
         ("offer path: the opening offer", "=INDEX(%s;1;2)" % path, ref["opening_offer"],
          src + "opening offer 0.4653846153846154", 1e-14),
@@ -238,7 +242,7 @@ def reason_values(text):
     ]
 
 
-BAD = "CATALOGUE.md Additions: bad input -> invalid argument"
+BAD = "bad input -> invalid argument (docs/models/ranges.md; docs/reference/functions.md)"
 ERRORS = [
     ("range: low above high", "=DEALRANGE(0.08;{0.16;0.04};30)", "Err:502",
      BAD + " (a low above its high)"),
@@ -247,13 +251,13 @@ ERRORS = [
     ("range: a 2x2 block", "=DEALRANGE(0.08;{0.04;0.08|0.12;0.16};30)", "Err:502",
      "addin/README.md: an input is a row or a column of 1 to 3 cells"),
     ("range: text", "=DEALRANGE(\"x\";0.1;30)", "Err:502",
-     "CATALOGUE.md: text where a number is needed is an error value"),
+     "docs/reference/functions.md: text where a number is needed is an error value"),
     ("range: text inside a range", "=DEALRANGE(0.08;{0.04;\"x\"};30)", "Err:502",
-     "CATALOGUE.md: text where a number is needed is an error value"),
+     "docs/reference/functions.md: text where a number is needed is an error value"),
     ("range: mode outside", "=DEALRANGE(0.08;{0.04;0.2;0.16};30)", "Err:502",
      BAD + " (a mode outside its range)"),
     ("range: probability 1", "=DEALRANGE(0.08;{0.04;0.16};30%s1)" % SKIP_TO_PROB, "Err:502",
-     BAD + " (a probability outside (0, 1); REFERENCE-PRIVATE C.7a)"),
+     BAD + " (a probability outside (0, 1): docs/models/ranges.md options)"),
     ("range: unknown shape", "=DEALRANGE(0.08;{0.04;0.08;0.16};30%s0.5;\"normal\")" % SKIP_TO_PROB,
      "Err:502", BAD + " (an unknown shape)"),
     ("range: own_opens as a range", "=DEALRANGE(0.08;0.1;30;;;;;;;;;{0;1})", "Err:502",
@@ -261,8 +265,8 @@ ERRORS = [
     ("range: negative seed", "=DEALRANGE(0.08;{0.04;0.16};30%s0.5;;-1)" % SKIP_TO_PROB, "Err:502",
      "addin/README.md: the seed is a whole number from 0"),
     ("range: precision not reached", "=DEALRANGE(0.08;{0.04;0.16};30%s0.5;;0;15)" % SKIP_TO_PROB,
-     "Err:523", "15 significant digits are beyond the cap of 16 x 2^20 points (REFERENCE-PRIVATE "
-     "C.6: precision_not_reached, never a silent rough number)"),
+     "Err:523", "15 significant digits are beyond the cap of 16 x 2^20 points "
+     "(docs/models/ranges.md: precision not reached, never a silent rough number)"),
     ("swing: low above high", "=DEALSWING(0.08;{0.16;0.04};30)", "Err:502", BAD),
     ("offer path: low above high", "=DEALOFFERPATH(1;0;0.9;0.9;2)", "Err:502",
      BAD + " (private_low > private_high)"),
@@ -271,9 +275,9 @@ ERRORS = [
     ("offer path: factor above 1", "=DEALOFFERPATH(0;1;1.5;0.9;2)", "Err:502",
      BAD + " (factors outside [0, 1])"),
     ("offer path: text", "=DEALOFFERPATH(\"x\";1;0.9;0.9;2)", "Err:502",
-     "CATALOGUE.md: text where a number is needed is an error value"),
+     "docs/reference/functions.md: text where a number is needed is an error value"),
     ("offer path: unknown offerer", "=DEALOFFERPATH(0;1;0.9;0.9;2;0;\"broker\")", "Err:502",
      BAD + " (an unknown offerer)"),
     ("offer path: no type gains", "=DEALOFFERPATH(0;1;0.9;0.9;2;2)", "#N/A",
-     "REFERENCE-PRIVATE B.6: the cost 2 is above every value: no deal"),
+     "private-information.md s.2.6: the cost 2 is above every value: no deal"),
 ]

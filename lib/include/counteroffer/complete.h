@@ -45,7 +45,7 @@ CTO_API int cto_round_factor(double rate, double days, double basis, int continu
  *          CTO_E_INDETERMINATE (both factors 1: every split is an equilibrium) -> NaN;
  *          CTO_E_INVALID -> NaN.
  *  One factor 1 is allowed: the infinitely patient side takes everything
- *  (REFERENCE s.12).  Both 0 is the ultimatum game (the opener takes all).
+ *  (docs/models/complete-information.md s.1, edge cases).  Both 0 is the ultimatum game (the opener takes all).
  *  Accuracy: relative error < 1e-15. */
 CTO_API int cto_share(double own_factor, double other_factor, double surplus,
                       int own_opens, double *out);
@@ -77,13 +77,14 @@ CTO_API int cto_limit_share(double own_rate, double other_rate, double surplus,
                             double *out);
 
 /*! cto_breakdown_share: own share with a risk that talks break down for good.
- *  Model (BRW 1986; Muthoo 1999 ch.4; timing of REFERENCE s.4.2): after each
+ *  Model (BRW 1986; Muthoo 1999 ch.4; timing of docs/models/complete-information.md s.4): after each
  *  rejection, with probability p talks end and each side gets its fallback b_i at
  *  once; otherwise the rejecter counter-offers next round.  With
  *  alpha_i = (1 - p) d_i and the no-deal value d_i^0 = p b_i / (1 - alpha_i)
  *  (the expected present value of waiting for breakdown), the opener gets
  *      d_open^0 + (surplus - d_own^0 - d_oth^0) (1 - alpha_resp) / (1 - alpha_own alpha_oth)
- *  which equals REFERENCE s.4.2's x* and, with d = 1, s.4.1's b_A + S/(2 - p).
+ *  which equals the x* of docs/models/complete-information.md s.4 and, with d = 1, its
+ *  b_A + (S - b_A - b_B)/(2 - p).
  *  own_factor, other_factor in [0, 1]; breakdown_prob p in [0, 1];
  *  own_fallback, other_fallback: money each side gets on breakdown, finite.
  *  It is cto_solve with no status quo and no walk-away options, and agrees with it
@@ -102,7 +103,7 @@ CTO_API int cto_breakdown_share(double own_factor, double other_factor,
  *  Osborne & Rubinstein 1990 ch.3): a responder may accept, counter-offer next
  *  round, or opt out at once for its outside option w_i.  Stationary conditions
  *      surplus - x = max(w_resp, d_resp y),  surplus - y = max(w_open, d_open x)
- *  solved exactly over the four linear regimes (REFERENCE s.5 table).
+ *  solved exactly over the four linear regimes (docs/models/complete-information.md s.5 table).
  *  The option is a constraint, not a threat point (outside option principle).
  *  own_outside, other_outside: money, finite (a negative option never binds).
  *  No deal and delay follow the game of cto_solve (it is cto_solve with no breakdown
@@ -277,7 +278,7 @@ CTO_API int cto_deadline_share(double own_factor, double other_factor, int64_t r
                                double surplus, int own_opens, double *out);
 
 /*! cto_deadline_share_breakdown: cto_deadline_share with a risk of breakdown.
- *  Model (REFERENCE s.3 with the breakdown timing of s.4.2; BRW 1986; Muthoo 1999
+ *  Model (docs/models/complete-information.md s.3 with the breakdown timing of s.4; BRW 1986; Muthoo 1999
  *  ch.4): after each rejection talks break down with chance p and each side gets its
  *  deadline payoff b_i at once; otherwise the next round comes, discounted.  A
  *  responder's value of rejecting is p b + (1-p) d v = (1 - a) d^0 + a v with
@@ -294,7 +295,7 @@ CTO_API int cto_deadline_share_breakdown(double own_factor, double other_factor,
                                          double *out);
 
 /*! cto_fixed_cost_share: own share when each round costs a fixed amount.
- *  Model (Rubinstein 1982, fixed-cost case; REFERENCE s.2 generalised table):
+ *  Model (Rubinstein 1982, fixed-cost case; docs/models/complete-information.md s.2, generalised):
  *    own cost < other cost: opener own gets surplus; opener other keeps min(c_own, S)
  *    own cost > other cost: opener own gets min(c_oth, S); opener other takes all.
  *  own_cost, other_cost  money per round, >= 0.
@@ -308,14 +309,14 @@ CTO_API int cto_fixed_cost_share(double own_cost, double other_cost, double surp
 /*! cto_delay_cost: expected value one party loses if agreement slips one round.
  *  Formula: stake - ((1-p) factor stake + p fallback)
  *         = p (stake - fallback) + (1-p)(1-factor) stake    (computed this way).
- *  Source: REFERENCE s.10 (holding cost (1 - d) s), s.4.2 timing.
+ *  Source: docs/models/complete-information.md s.4 (delay cost, and the timing of a breakdown).
  *  factor in [0,1]; stake: money at stake, finite; p in [0,1]; fallback: money.
  *  Status: CTO_OK; CTO_E_INVALID -> NaN.   Accuracy: relative error < 1e-15. */
 CTO_API int cto_delay_cost(double factor, double stake, double breakdown_prob,
                            double fallback, double *out);
 
 /*! cto_first_mover_advantage: own share as opener minus own share as responder.
- *  Formula: surplus (1 - d_own)(1 - d_oth) / (1 - d_own d_oth)  (REFERENCE s.10;
+ *  Formula: surplus (1 - d_own)(1 - d_oth) / (1 - d_own d_oth)  (docs/models/complete-information.md s.10;
  *  equal for both parties).  Source: Rubinstein (1982); Muthoo (1999) ch.3.
  *  Status: CTO_OK; CTO_E_NO_DEAL (surplus <= 0) -> 0; CTO_E_INDETERMINATE
  *  (both factors 1); CTO_E_INVALID.   Accuracy: relative error < 1e-15. */
@@ -332,7 +333,7 @@ CTO_API int cto_first_mover_advantage(double own_factor, double other_factor,
  *  Linear: x = b_o + tau (S - b_o - b_t).  Curvature below 1 and zero fallbacks:
  *  x = S a_o tau / (a_o tau + a_t (1 - tau)); otherwise the first-order condition is
  *  solved by a bracketed root finder (Brent 1973) to full double precision.
- *  Sources: Nash (1950); Kalai (1977); Muthoo (1999) ch.2; REFERENCE s.7.
+ *  Sources: Nash (1950); Kalai (1977); Muthoo (1999) ch.2; docs/models/complete-information.md s.8.
  *  own_fallback, other_fallback  disagreement payoffs, money (>= 0 when a
  *  curvature is below 1); own_weight tau in [0,1]; curvatures in (0, 1].
  *  Status: CTO_OK; CTO_E_NO_DEAL (S <= b_o + b_t) -> b_o; CTO_E_NO_CONVERGENCE;
@@ -342,7 +343,7 @@ CTO_API int cto_nash_share(double own_fallback, double other_fallback,
                            double other_curvature, double *out);
 
 /*! cto_risk_averse_share: alternating offers with concave utilities.
- *  Stationary conditions (BRW 1986; Muthoo 1999 ch.3-4; REFERENCE s.7, s.4.1),
+ *  Stationary conditions (BRW 1986; Muthoo 1999 ch.3-4; docs/models/complete-information.md s.8, s.4),
  *  with A the opener:
  *      u_B(S - x) = p u_B(b_B) + (1-p) d_B u_B(y),
  *      u_A(S - y) = p u_A(b_A) + (1-p) d_A u_A(x).
@@ -438,7 +439,7 @@ CTO_API int cto_share_sensitivity(double own_rate, double other_rate, double day
  * ========================================================================= */
 
 /*! cto_screening_profit: seller's best expected revenue over two price offers to a
- *  buyer of unknown value (Fudenberg & Tirole 1983 setting; REFERENCE s.9).
+ *  buyer of unknown value (Fudenberg & Tirole 1983 setting; docs/models/complete-information.md s.12).
  *  The maximum of  pool v_L;  screen q((1-d_b) v_H + d_b v_L) + (1-q) d_s v_L;
  *  and, when q > v_L/v_H, skim v_H((q v_H - v_L) + d_s (1-q) v_L)/(v_H - v_L).
  *  high_value v_H >= low_value v_L > 0 (money); high_prob q in [0,1];

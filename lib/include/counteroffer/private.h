@@ -162,8 +162,8 @@ typedef struct cto_offer_row {
  *          overflow) -> every field NaN.
  *  Accuracy: no gap: relative error <= 1e-14 against 50-digit backward induction
  *  (tests/reference/private; worst measured 3.7e-16), the late rows of a long deadline
- *  lose about one ulp a round; gap: the 15-digit check values of the design reference
- *  to 5e-15.  Cost: no deadline O(1); deadline, no gap O(rounds) at about 17 ns a round
+ *  lose about one ulp a round; gap: the 15-digit check values of the gap case in
+ *  tests/cpp/test_offers_gap.cpp to 5e-15.  Cost: no deadline O(1); deadline, no gap O(rounds) at about 17 ns a round
  *  (34 with rows), O(1) memory; gap: microseconds to milliseconds (stages x pieces^2).
  *  No allocation; the gap case uses about 220 KB of stack.
  *  rounds is at most 10,000,000 (the deadline costs O(rounds)); more is CTO_E_INVALID.

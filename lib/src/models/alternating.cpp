@@ -23,7 +23,8 @@ int fixed_cost_share(double own_cost, double other_cost, double surplus, bool ow
     if (!(S > 0.0)) return status_only(CTO_E_NO_DEAL, 0.0, out, bad);
     if (own_cost == other_cost && own_cost < S)
         return status_only(CTO_E_INDETERMINATE, kNaN, out, bad);
-    // Proposer X with cost cx against responder cost cy (REFERENCE s.2, generalised):
+    // Proposer X with cost cx against responder cost cy (docs/models/complete-information.md
+    // s.2, generalised):
     // cx < cy -> S;  cx > cy -> min(cy, S);  equal costs >= S -> S.
     auto proposer_share = [S](double cx, double cy) { return cx > cy ? std::min(cy, S) : S; };
     const double v = own_opens ? proposer_share(own_cost, other_cost)

@@ -83,8 +83,9 @@ void linear_finite(const Canon &p, OfferRow *rows, int64_t cap, OfferTotals *o) 
     }
 }
 
-// No deadline, no gap: the stationary linear equilibrium (B.3 of the design reference),
-// with s = sqrt(1 - d_s): m = 1/(1 + s), 1 - m = s/(1 + s), 1 - d_b m = (1 - d_b) + d_b s/(1 + s).
+// No deadline, no gap: the stationary linear equilibrium (docs/models/private-information.md
+// s.2.3), with s = sqrt(1 - d_s):
+// m = 1/(1 + s), 1 - m = s/(1 + s), 1 - d_b m = (1 - d_b) + d_b s/(1 + s).
 void linear_endless(const Canon &p, OfferRow *rows, int64_t cap, OfferTotals *o) {
     const double ds = p.ds, db = p.db, h = p.h, hl = p.h / p.len;
     const double s = std::sqrt(1.0 - ds);

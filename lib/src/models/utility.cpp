@@ -35,7 +35,8 @@ int nash_share(double own_fallback, double other_fallback, double own_weight, do
     if (!exceeds(surplus, bo, bt)) return status_only(CTO_E_NO_DEAL, bo, out, bad);
     if (!curved || tau == 0.0 || tau == 1.0) return finish(bo + tau * Sp, out, bad, 3);
     const double ao = own_curvature, at = other_curvature;
-    if (bo == 0.0 && bt == 0.0) {  // closed form, REFERENCE s.7 (CRRA, d = 0)
+    // closed form, docs/models/complete-information.md s.8 (CRRA, d = 0)
+    if (bo == 0.0 && bt == 0.0) {
         const double wo = ao * tau, wt = at * (1.0 - tau);
         return finish(surplus * (wo / (wo + wt)), out, bad, 3);
     }
@@ -223,7 +224,8 @@ int risk_averse_share(double own_factor, double other_factor, double own_curvatu
     if (B.alpha == 1.0) return status_only(CTO_OK, own_opens ? 0.0 : S, out, bad);
 
     if (utility == CTO_UTILITY_POWER && p == 0.0) {
-        // Closed form (REFERENCE s.7): Rubinstein with factors d^(1/a), via expm1.
+        // Closed form (docs/models/complete-information.md s.8): Rubinstein with factors
+        // d^(1/a), via expm1.
         const double lA = log_factor(A.alpha) / A.a, lB = log_factor(B.alpha) / B.a;
         const double den = -std::expm1(lA + lB);
         const double v = own_opens ? S * (-std::expm1(lB) / den)

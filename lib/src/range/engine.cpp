@@ -82,10 +82,12 @@ int build_sampler(const Model &model, const RangeArg *args, int n_slots, uint64_
     return -1;
 }
 
-// The scrambling cache's L: at most 12 digits, no more than the largest sample needs, and
-// at most 32 MiB for all replicates.  A pure cache: results do not depend on it.
+// The scrambling cache's L: at most 12 digits, no more than the first round's 2^log2_start
+// points per replicate need, and at most 32 MiB for all replicates.  Building it costs
+// 2^(L+1) hashes and saves L per point, so L = log2_start is the cheapest for the first
+// round, where most runs stop.  A pure cache: results do not depend on it.
 int prefix_bits(const Sampler &s, const RangeOptions &opt) {
-    int L = std::min(12, opt.log2_max);
+    int L = std::min(12, opt.log2_start);
     const uint64_t per = static_cast<uint64_t>(opt.replicates) *
                          static_cast<uint64_t>(std::max(s.n_uncertain, 1)) * sizeof(uint32_t);
     while (L > 0 && (per << L) > (uint64_t{32} << 20)) --L;
@@ -201,7 +203,7 @@ bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
     return reached;
 }
 
-// The doubling loop (C.6 of the design notes).
+// The doubling loop (docs/models/ranges.md, "Estimators and error bars": digit target).
 int sample(const Sampler &s, const RangeOptions &opt, RangeOut *o) {
     Reps reps(static_cast<size_t>(opt.replicates));
     for (ReplicateData &d : reps)

@@ -1,4 +1,4 @@
-// Table-started PERT inverse; see pert_table.hpp.
+// Table-based PERT inverse; see pert_table.hpp for the formulas and sources.
 #include "pert_table.hpp"
 
 #include <algorithm>
@@ -7,6 +7,22 @@
 #include "beta.hpp"
 
 namespace cto::core::range {
+namespace {
+
+// The knot x with I_x(a, b) = v from `guess`, a Taylor step off the previous knot (error
+// O(h^3)): Halley steps (beta.hpp) until a step is below 2^-50 x, as inc_beta_inv ends;
+// the bracketed iterative inverse wherever that does not settle within four steps.
+double knot(double v, double guess, double a, double b, double beta) {
+    double x = guess;
+    for (int it = 0; it < 4 && x > 0.0 && x < 1.0; ++it) {
+        const double xn = inc_beta_halley_step(x, v, a, b, beta);
+        if (std::fabs(xn - x) <= 0x1p-50 * xn) return xn;
+        x = xn;
+    }
+    return inc_beta_inv(v, a, b, beta);
+}
+
+}  // namespace
 
 void pert_half_build(double a, double b, double beta, PertHalf *t) {
     t->a = a;
@@ -15,29 +31,42 @@ void pert_half_build(double a, double b, double beta, PertHalf *t) {
     t->inv_a = 1.0 / a;
     const double s_max = std::pow(0.5, 1.0 / a);
     t->h = s_max / kPertKnots;
-    t->x[0] = 0.0;
-    t->dx[0] = std::pow(a * beta, 1.0 / a);  // the limit of dx/ds at s = 0
+    t->inv_h = kPertKnots / s_max;
+    const double d0 = std::pow(a * beta, 1.0 / a);  // the limits at s = 0
+    t->knot[0] = {0.0, d0, 2.0 * (b - 1.0) * d0 * d0 / (a + 1.0)};
     for (int k = 1; k <= kPertKnots; ++k) {
         const double s = t->h * k;
-        const double x = inc_beta_inv(std::pow(s, a), a, b, beta);
-        t->x[k] = x;
-        t->dx[k] = a * std::pow(s, a - 1.0) * beta /
-                   (std::pow(x, a - 1.0) * std::pow(1.0 - x, b - 1.0));
+        // The last knot is the median itself (v = 1/2 exactly, not a rounded s_max^a), from
+        // the bracketed iterative inverse as dist_quantile gives it without a table.
+        const PertHalf::Knot &prev = t->knot[k - 1];
+        const double guess = prev.x + t->h * (prev.dx + 0.5 * t->h * prev.d2x);
+        const double x = k == kPertKnots ? inc_beta_inv(0.5, a, b, beta)
+                                         : knot(std::pow(s, a), guess, a, b, beta);
+        const double d = a * std::pow(s, a - 1.0) * beta /
+                         (std::pow(x, a - 1.0) * std::pow(1.0 - x, b - 1.0));
+        t->knot[k] = {x, d, (a - 1.0) * d * (1.0 / s - d / x) + (b - 1.0) * d * d / (1.0 - x)};
     }
 }
 
 double pert_half_inverse(const PertHalf &t, double v) {
     const double s = std::exp(std::log(v) * t.inv_a);
-    const double pos = std::min(s / t.h, static_cast<double>(kPertKnots) - 1e-9);
-    const int k = static_cast<int>(pos);
-    const double w = pos - k, hh = t.h;
-    // Cubic Hermite on [s_k, s_k+1] in the local variable w in [0, 1].
+    const double pos = s * t.inv_h;  // in [0, K] up to rounding
+    const int k = std::min(static_cast<int>(pos), kPertKnots - 1);
+    const double w = pos - k, h = t.h;  // w in [0, 1], or a rounding above 1 at v = 1/2
+    // Quintic Hermite on [s_k, s_k+1] in w in [0, 1]: the values enter as
+    // x_k + (x_k+1 - x_k) H5(w), the scaled derivatives through H1, H4 (first) and
+    // H2, H3 (second).
     const double w2 = w * w, w3 = w2 * w;
-    const double h00 = 2 * w3 - 3 * w2 + 1, h10 = w3 - 2 * w2 + w, h01 = -2 * w3 + 3 * w2,
-                 h11 = w3 - w2;
-    double x = h00 * t.x[k] + h10 * hh * t.dx[k] + h01 * t.x[k + 1] + h11 * hh * t.dx[k + 1];
+    const double h5 = w3 * (10.0 + w * (-15.0 + 6.0 * w));
+    const double h1 = w + w3 * (-6.0 + w * (8.0 - 3.0 * w));
+    const double h4 = w3 * (-4.0 + w * (7.0 - 3.0 * w));
+    const double h2 = 0.5 * w2 * (1.0 + w * (-3.0 + w * (3.0 - w)));
+    const double h3 = 0.5 * w3 * (1.0 + w * (-2.0 + w));
+    const PertHalf::Knot &p = t.knot[k], &q = t.knot[k + 1];
+    const double x = p.x + ((q.x - p.x) * h5 + h * ((p.dx * h1 + q.dx * h4) +
+                                                     h * (p.d2x * h2 + q.d2x * h3)));
     if (!(x > 0.0 && x < 1.0)) return inc_beta_inv(v, t.a, t.b, t.beta);
-    return inc_beta_halley_step(x, v, t.a, t.b, t.beta);
+    return x;
 }
 
 }  // namespace cto::core::range

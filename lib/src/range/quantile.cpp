@@ -5,6 +5,7 @@
 #include <cmath>
 #include <cstring>
 #include <limits>
+#include <utility>
 
 namespace cto::core::range {
 namespace {
@@ -47,12 +48,39 @@ double order_stat(const double *const *seg, size_t nseg, size_t len, size_t r) {
 }  // namespace
 
 void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
-    // Sorting the integer keys is several times faster than sorting doubles with a
-    // totalOrder comparison, and gives the same order.
-    keys.resize(n);
-    for (size_t i = 0; i < n; ++i) keys[i] = order_key(y[i]);
-    std::sort(keys.begin(), keys.end());
-    for (size_t i = 0; i < n; ++i) y[i] = from_key(keys[i]);
+    // The integer keys are sorted instead of the doubles (same order, IEEE totalOrder).
+    // Short arrays by comparison; longer ones by a least-significant-digit radix sort
+    // (Knuth, TAOCP vol. 3, s.5.2.5) of eight 8-bit digits, skipping each digit that all
+    // keys share (the shares of one deal agree in their leading bits).  A sort's result
+    // does not depend on the method: equal keys are equal doubles.
+    if (n < 256) {
+        keys.resize(n);
+        for (size_t i = 0; i < n; ++i) keys[i] = order_key(y[i]);
+        std::sort(keys.begin(), keys.end());
+        for (size_t i = 0; i < n; ++i) y[i] = from_key(keys[i]);
+        return;
+    }
+    keys.resize(2 * n);
+    uint64_t *a = keys.data(), *b = a + n;
+    size_t count[8][256] = {};
+    for (size_t i = 0; i < n; ++i) {
+        const uint64_t k = order_key(y[i]);
+        a[i] = k;
+        for (int d = 0; d < 8; ++d) ++count[d][(k >> (8 * d)) & 0xFF];
+    }
+    for (int d = 0; d < 8; ++d) {
+        size_t *c = count[d];
+        if (c[(a[0] >> (8 * d)) & 0xFF] == n) continue;  // one bucket: the digit is shared
+        size_t sum = 0;
+        for (int v = 0; v < 256; ++v) {
+            const size_t t = c[v];
+            c[v] = sum;
+            sum += t;
+        }
+        for (size_t i = 0; i < n; ++i) b[c[(a[i] >> (8 * d)) & 0xFF]++] = a[i];
+        std::swap(a, b);
+    }
+    for (size_t i = 0; i < n; ++i) y[i] = from_key(a[i]);
 }
 
 void sort_total(double *y, size_t n) {

@@ -33,8 +33,9 @@ uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *m
     const uint32_t top = mask[L == 0 ? 0 : (x >> (32 - L))];
     const unsigned first = static_cast<unsigned>(L) + 2;
     uint32_t tail;
-    if (simd == Simd::kScalar || !scramble_tail_avx2(x, key, first, &tail))
-        tail = tail_flips(x, key, first);
+    const bool vector = (simd == Simd::kAuto && scramble_tail_avx512(x, key, first, &tail)) ||
+                        (simd != Simd::kScalar && scramble_tail_avx2(x, key, first, &tail));
+    if (!vector) tail = tail_flips(x, key, first);
     return x ^ top ^ tail;
 }
 

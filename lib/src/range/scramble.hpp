@@ -6,7 +6,7 @@
 // tree of independent fair coins.  Here each coin is a hash of its tree node, keyed by
 // seed, replicate and dimension (in the spirit of Burley 2020), so that nothing is stored
 // and any point can be generated alone.  The exact rule (docs/models/ranges.md, "The
-// generator", step 3 and 4; REFERENCE-PRIVATE C.3 of the design notes):
+// generator", steps 3 and 4):
 //   mix64(z): z = (z ^ z>>30) * 0xBF58476D1CE4E5B9; z = (z ^ z>>27) * 0x94D049BB133111EB;
 //             return z ^ z>>31                       (SplitMix64 finaliser, Steele et al. 2014)
 //   G = 0x9E3779B97F4A7C15
@@ -47,12 +47,15 @@ inline constexpr int kMaxPrefixBits = 16;
 void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
 uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask);
 
-// The flips of digits first..32 (first >= 2) with AVX2 (scramble_simd.cpp): returns false
-// (and writes nothing) when the CPU lacks AVX2; else the same bits as the scalar loop.
+// The flips of digits first..32 (first >= 2) with AVX-512 (AVX512F and AVX512DQ) or AVX2
+// (scramble_simd.cpp): each returns false (and writes nothing) when the CPU lacks it; else
+// the same bits as the scalar loop.
+bool scramble_tail_avx512(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
 bool scramble_tail_avx2(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
 
-// Whether owen_scramble_cached may use the AVX2 path (tests switch it off to compare).
-enum class Simd { kAuto, kScalar };
+// Which path owen_scramble_cached takes: kAuto the widest the CPU has; the others force a
+// narrower one (falling back to scalar), so that tests compare every path on one machine.
+enum class Simd { kAuto, kAvx2, kScalar };
 uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask, Simd simd);
 
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.

@@ -1,11 +1,11 @@
 """Reference values for offer_path in the gap case (every type worth serving) at 50 digits.
 
 A separate implementation in mpmath of the piecewise-polynomial backward induction
-(REFERENCE-PRIVATE B.4), built differently from the library's: the upper envelope of the
-candidate cutoffs is cut at every pairwise crossing of the candidates' value quadratics
-and every domain end, with the winner taken at each midpoint (the reference's steps 2-3;
-the library sweeps with a kinetic search instead).  Each stage is
-then checked by **stagewise direct maximisation** (the design reference's SW method): at
+(docs/models/private-information.md s.2.4), built differently from the library's: the
+upper envelope of the candidate cutoffs is cut at every pairwise crossing of the
+candidates' value quadratics and every domain end, with the winner taken at each
+midpoint (s.2.4 steps 1-2 with another envelope; the library sweeps instead).  Each stage is
+then checked by **stagewise direct maximisation** (no candidates, no envelope): at
 random states the stage objective phi_n(x)(k - x) + d_s W_(n-1)(x), evaluated from the
 previous stage, is maximised over the cutoff x by a dense scan and golden-section
 refinement, without candidates; the stage value must agree (to 1e-30) and never be beaten.
@@ -97,9 +97,10 @@ def crossing(c1, c2, lo, hi):
 
 
 def build(stage, a, H, ds, db):
-    """The envelope as in the design reference's B.4 steps 2-3: every domain end and every
-    real root of a pairwise difference of candidates cut [a, H]; on each elementary
-    interval the winner is the best candidate at its midpoint."""
+    """The envelope of docs/models/private-information.md s.2.4 step 2, cut differently:
+    every domain end and every real root of a pairwise difference of candidates cut
+    [a, H]; on each elementary interval the winner is the best candidate at its
+    midpoint."""
     cands = candidates(stage, a, H, ds, db)
     pts = set([a, H] + [c[0] for c in cands] + [c[1] for c in cands])
     for i, c1 in enumerate(cands):

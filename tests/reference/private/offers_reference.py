@@ -1,5 +1,5 @@
 """Reference values for offer_path at 50 digits, by methods independent of the library's
-recursions and closed forms (REFERENCE-PRIVATE D.B).
+recursions and closed forms (docs/models/private-information.md, "Accuracy and tests").
 
 * Numerical backward induction (NBI) by first-order conditions: each stage's offer and
   value functions are represented by degree-8 polynomial interpolation at Chebyshev

@@ -1,8 +1,8 @@
 """Reference values for double_auction at 50 digits, by methods independent of the
-library's polygon algorithm (REFERENCE-PRIVATE D.A).
+library's polygon algorithm (docs/models/private-information.md, "Accuracy and tests").
 
 * The equilibrium strategies are written down from their definition (Chatterjee &
-  Samuelson 1983, generalised with clamps; REFERENCE-PRIVATE A.2) and then used only as
+  Samuelson 1983, generalised with clamps; private-information.md s.1.2) and then used only as
   black boxes: the trade boundary for each cost, the end of each clamp and the kinks of
   the outer integrand are found by bisection on the strategies, and the expectations are
   2-D Gauss-Legendre quadrature over the pieces between kinks (where the integrands are
@@ -73,7 +73,7 @@ def bisect(pred, lo, hi, it=200):
 
 
 class Auction:
-    """The k-double auction equilibrium, from its definition (A.2)."""
+    """The k-double auction equilibrium, from its definition (private-information.md s.1.2)."""
 
     def __init__(self, slo, shi, blo, bhi, k):
         self.slo, self.shi, self.blo, self.bhi, self.k = [mp.mpf(x) for x in (slo, shi, blo, bhi, k)]
@@ -215,7 +215,7 @@ def first_best(au, n):
 
 
 def second_best(au, n):
-    """(g*, SB, P_SB); the direct test decides first-best feasibility (A.3 step 3)."""
+    """(g*, SB, P_SB); the direct test decides first-best feasibility (s.1.5)."""
     pf, fb = first_best(au, n)
     if au.ls == 0 or au.lb == 0 or au.blo >= au.shi:
         return mp.mpf(0), fb, pf
@@ -281,7 +281,8 @@ def row(slo, shi, blo, bhi, k):
     au = Auction(slo, shi, blo, bhi, k)
     if au.regime == "none":
         vals = [0, 0, 0, 0, mp.nan, 0, 0, 0, mp.nan, 0]
-        return au.regime, "no_deal", vals, "D <= 0: no gains (A.4)"
+        return (au.regime, "no_deal", vals,
+                "D <= 0: no gains (private-information.md s.1.7)")
     with mp.workdps(70):  # 20 guard digits: endpoints near 1e9 cost 9 of them
         m = moments(au, 12)
         m2 = moments(au, 16)
@@ -302,7 +303,8 @@ def row(slo, shi, blo, bhi, k):
 
 
 def cases():
-    """Textbook and A.5 cases, then random draws (fixed seed)."""
+    """Textbook cases and those of the check values in tests/cpp/test_trade_published.cpp,
+    then random draws (fixed seed)."""
     out = [(0.0, 1.0, 0.0, 1.0, 0.5), (0.0, 1.0, 0.0, 1.0, 0.25), (0.0, 1.0, 0.3, 1.0, 0.5),
            (0.0, 1.0, 0.5, 1.5, 0.3), (10.0, 30.0, 20.0, 50.0, 0.5),
            (100.0, 200.0, 120.0, 260.0, 0.5), (0.0, 2.0, 1.0, 1.5, 0.7), (0.0, 1.0, 1.0, 2.0, 0.5),

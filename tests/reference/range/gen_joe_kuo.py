@@ -5,8 +5,8 @@ Source of the numbers: the copy of that file that scipy ships in
 scipy/stats/_sobol_direction_numbers.npz ("poly": the primitive polynomial with its leading
 and trailing 1 bits, "vinit": m_1..m_s).  Run with the project venv:
     .venv/bin/python tests/reference/range/gen_joe_kuo.py
-The output is committed; REFERENCE-PRIVATE C.3 lists the first rows, and
-tests/cpp/test_range_sobol.cpp checks them.  See lib/src/range/JOE-KUO-NOTICE.txt.
+The output is committed; tests/cpp/test_range_generator.cpp checks rows 2..10 against
+the published file.  See lib/src/range/JOE-KUO-NOTICE.txt.
 """
 import os
 import sys

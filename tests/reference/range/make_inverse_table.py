@@ -9,8 +9,10 @@ digits, independently of the library:
   * PERT: Beta(alpha, beta) with alpha = 1 + 4 (m - lo)/(hi - lo), beta = 1 + 4 (hi - m)/(hi - lo)
     (Vose 2008; Malcolm et al. 1959), inverted by 140 bisections on mpmath's regularised
     incomplete beta (mpmath.betainc(..., regularized=True)).
-Rows D1-D16 are the check values of the design notes (REFERENCE-PRIVATE C.8.1); the
-others are a grid of shapes and probabilities, including the extreme coordinates
+Rows D1-D16 are the inputs of the 15-digit check values D1-D16 of
+tests/cpp/test_range_distributions.cpp (made by the closed form or 140 bisections on
+mpmath's incomplete beta at 40 digits, and confirmed by bisection on the triangular CDF
+and by scipy.special.betaincinv); the others are a grid of shapes and probabilities, including the extreme coordinates
 (0.5 and 2^32 - 0.5) * 2^-32 that the generator can produce.
 Run: .venv/bin/python tests/reference/range/make_inverse_table.py
 """
@@ -64,7 +66,7 @@ def inverse(kind, lo, m, hi, u):
     return bisect(lambda x: pert_cdf(x, lo, m, hi), lo, hi, u)
 
 
-CHECKS = [  # REFERENCE-PRIVATE C.8.1, rows D1-D16
+CHECKS = [  # the check values D1-D16 (tests/cpp/test_range_distributions.cpp)
     ("triangular", 0.02, 0.05, 0.12, 0.1), ("triangular", 0.02, 0.05, 0.12, 0.3),
     ("triangular", 0.02, 0.05, 0.12, 0.5), ("triangular", 0.02, 0.05, 0.12, 0.9),
     ("triangular", 0.0, 0.0, 1.0, 0.05), ("triangular", 0.0, 1.0, 1.0, 0.5),

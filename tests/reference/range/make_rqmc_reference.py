@@ -3,7 +3,7 @@
 An independent implementation of the generator of docs/models/ranges.md (Sobol' points
 from scipy's copy of the Joe & Kuo 2008 direction numbers, natural order; hashed Owen
 scrambling; u = (Y + 1/2) 2^-32), the inverse CDFs (triangular closed form; PERT through
-scipy.special.betaincinv) and the two examples of the design notes (REFERENCE-PRIVATE C.2),
+scipy.special.betaincinv) and the two examples of docs/models/ranges.md ("The two examples"),
 written as closed forms with monthly offers (Delta = 1/12 year, surplus 1, own opens):
   d2: own share x = expm1(-r_B D)/expm1(-(r_A + r_B) D)            (Rubinstein 1982)
       r_A ~ PERT(0.05, 0.10, 0.20), r_B ~ Triangular(0.02, 0.05, 0.12)
