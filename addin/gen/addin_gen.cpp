@@ -263,13 +263,15 @@ Method reason_method() {
     why.desc = "Why a DEAL function gives its result, in words: which argument is wrong and "
                "how (Err:502), why there is no deal (#N/A) or no single answer (#NUM!), a "
                "valid value that looks like a slip (a rate typed as 8 for 8%), or ok. Give "
-               "the function's name, then the same arguments. Source: the library's argument "
+               "the function's name, then the same arguments. For DEALRANGE, "
+               "DEALRANGEOUTCOME and DEALSWING also which part of a range is wrong and why "
+               "the precision was not reached (Err:523). Source: the library's argument "
                "rules and statuses.";
     why.category = "Financial";
     why.params = {"functionName", "arguments"};
     why.optional = {false, true};
     why.labels = {"Function", "Arguments"};
-    why.helps = {"Name of a DEAL function as text, e.g. \"DEALSOLVE\". Required.",
+    why.helps = {"Name of a DEAL function as text, e.g. \"DEALSOLVE\" or \"DEALRANGE\". Required.",
                  "The arguments of that function, in its order; left out: its defaults. "
                  "Optional."};
     why.id = -1;

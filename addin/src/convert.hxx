@@ -155,11 +155,14 @@ bool make_view(const Arg &a, View &v) {
 } // namespace
 namespace {
 
-// Err:502 for argument `bad` (0-based; < 0: none named) of the Calc function `calc`.
-[[noreturn]] void throw_invalid_arg(const char *calc, int bad, const char *label) {
+// Err:502 for argument `bad` (0-based; < 0: none named) of the Calc function `calc`;
+// `why` (may be NULL) says what a value the add-in could not convert must be.
+[[noreturn]] void throw_invalid_arg(const char *calc, int bad, const char *label,
+                                    const char *why = nullptr) {
     OUString what = OUString::createFromAscii(calc) + ": invalid argument";
     if (bad >= 0)
         what += " " + OUString::number(bad + 1) + " (" + OUString::createFromAscii(label) + ")";
+    if (why) what += ": " + OUString::createFromAscii(why);
     throw css::lang::IllegalArgumentException(what, css::uno::Reference<css::uno::XInterface>(),
                                               static_cast<sal_Int16>(bad >= 0 ? bad : 0));
 }

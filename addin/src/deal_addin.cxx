@@ -313,9 +313,14 @@ class DealFunctions
   public:
     // DEALREASON: the library's reason (cto_explain) as text, for the same arguments
     // converted as the function itself would convert them; a range gives its first
-    // element.  It never fails on the user's input: every mistake is a reason.
+    // element.  For DEALRANGE, DEALRANGEOUTCOME and DEALSWING (src/ranges.hxx) the
+    // arguments are read as those functions read them and the reason is
+    // cto_range_explain's or cto_swing_explain's.  It never fails on the user's input:
+    // every mistake is a reason.
     css::uno::Any reason(const OUString &name, const css::uno::Sequence<css::uno::Any> &args) {
         try {
+            const RangeFn rf = range_function(name);
+            if (rf != RangeFn::None) return css::uno::Any(range_reason(table_, rf, args));
             const cto_function_info *f = find(name);
             if (!f)
                 return css::uno::Any("unknown function \"" + name.trim() +

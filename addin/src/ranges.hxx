@@ -8,10 +8,14 @@
 // library validates everything else and names the bad input (out.bad), which becomes
 // Err:502 for that argument.  Precision not reached (CTO_E_PRECISION) is Err:523 for
 // each quantile short of the digit target; DEALRANGEOUTCOME shows every estimate with its
-// half-width, its digits and the status word.
+// half-width, its digits and the status word.  DEALREASON("DEALRANGE"; ...) (and
+// "DEALRANGEOUTCOME", "DEALSWING") converts the same arguments with the same functions
+// and returns the library's reason (cto_range_explain, cto_swing_explain), or what a
+// value the add-in could not convert must be.
 #ifndef CTO_ADDIN_RANGES_HXX
 #define CTO_ADDIN_RANGES_HXX
 
+#include <algorithm>
 #include <cstdio>
 #include <vector>
 
@@ -82,7 +86,9 @@ cto_range_arg range_input(const char *calc, int j, const Arg &a, const cto_arg_i
     }
     View v;
     if (!make_view(a, v) || (v.rows != 1 && v.cols != 1) || v.rows > 3 || v.cols > 3)
-        throw_invalid_arg(calc, j, info.label);
+        throw_invalid_arg(calc, j, info.label,
+                          "one cell, or 2 cells (low, high) or 3 (low, mode, high) in a row "
+                          "or a column");
     const sal_Int32 n = v.rows * v.cols;
     double x[3];
     for (sal_Int32 i = 0; i < n; ++i)
@@ -112,7 +118,8 @@ int range_shape(const char *calc, const Arg &a) {
         if (equals_ignore_case(s, "pert")) return CTO_RANGE_PERT;
         if (equals_ignore_case(s, "triangular")) return CTO_RANGE_TRIANGULAR;
     }
-    throw_invalid_arg(calc, cto_addin::kArgShape, cto_addin::kRangeExtra[1].label);
+    throw_invalid_arg(calc, cto_addin::kArgShape, cto_addin::kRangeExtra[1].label,
+                      "\"pert\" or \"triangular\"");
 }
 
 // One number from an optional single-value argument (NaN when it is not one).
@@ -128,16 +135,20 @@ std::uint64_t range_seed(const char *calc, const Arg &a) {
     if (omitted(a)) return 0;
     const double s = single_value(a);
     if (!(s >= 0.0 && s <= 9007199254740992.0 && s == std::floor(s)))
-        throw_invalid_arg(calc, cto_addin::kArgSeed, cto_addin::kRangeExtra[2].label);
+        throw_invalid_arg(calc, cto_addin::kArgSeed, cto_addin::kRangeExtra[2].label,
+                          "a whole number from 0 to 2^53");
     return static_cast<std::uint64_t>(s);
 }
 
-// The digit target: a whole number passes as it is, anything else as 0, which the
-// library rejects (out.bad names the digits option).
-int range_digits(const Arg &a) {
+// The digit target: a whole number passes as it is (beyond +/-10^6 as +/-10^6), for the
+// library to judge (out.bad names the digits option); anything else cannot become one.
+int range_digits(const char *calc, const Arg &a) {
     if (omitted(a)) return cto_addin::kDefaultDigits;
     const double d = single_value(a);
-    return (d >= -1e6 && d <= 1e6 && d == std::floor(d)) ? static_cast<int>(d) : 0;
+    if (!(d == std::floor(d)))
+        throw_invalid_arg(calc, cto_addin::kArgDigits, cto_addin::kRangeExtra[3].label,
+                          "a whole number");
+    return static_cast<int>(std::max(-1e6, std::min(1e6, d)));
 }
 
 // The probabilities: left out, DEALRANGE's 0.5 (the outcome form keeps the library's
@@ -158,7 +169,8 @@ Probs range_probs(const char *calc, const Arg &a, bool outcome, cto_range_option
     View v;
     if (!make_view(a, v) ||
         static_cast<std::int64_t>(v.rows) * v.cols > CTO_RANGE_MAX_PROBS)
-        throw_invalid_arg(calc, cto_addin::kArgProbability, cto_addin::kRangeExtra[0].label);
+        throw_invalid_arg(calc, cto_addin::kArgProbability, cto_addin::kRangeExtra[0].label,
+                          "a value, or a range of at most 32 probabilities");
     p.rows = v.rows;
     p.cols = v.cols;
     p.array = v.m != nullptr;
@@ -190,25 +202,33 @@ cto_range_input range_inputs(const char *calc, const RangeArgs &ra, const Arg *a
     return in;
 }
 
-// Converts DEALRANGE's (or DEALRANGEOUTCOME's) 18 arguments and runs cto_share_range.
-// Invalid input throws Err:502; the status is returned (out is written).
+// DEALRANGE's (or DEALRANGEOUTCOME's) 18 arguments as the library's inputs and options;
+// a value that cannot become one throws Err:502 naming it.
 struct RangeRun {
+    cto_range_input in;
     cto_range_options opt;
     cto_range_outcome out;
     Probs probs;
     int status;
 };
-void run_range(const char *calc, const Table &t, const Arg *args, bool outcome, RangeRun &run) {
-    const RangeArgs ra(t);
+void convert_range(const char *calc, const RangeArgs &ra, const Arg *args, bool outcome,
+                   RangeRun &run) {
     const int shape = range_shape(calc, args[cto_addin::kArgShape]);
-    const cto_range_input in = range_inputs(calc, ra, args, shape);
+    run.in = range_inputs(calc, ra, args, shape);
     cto_range_default_options(&run.opt);
     run.probs = range_probs(calc, args[cto_addin::kArgProbability], outcome, run.opt);
     run.opt.seed = range_seed(calc, args[cto_addin::kArgSeed]);
-    run.opt.digits = range_digits(args[cto_addin::kArgDigits]);
+    run.opt.digits = range_digits(calc, args[cto_addin::kArgDigits]);
+}
+
+// Converts the arguments and runs cto_share_range.  Invalid input throws Err:502; the
+// status is returned (out is written).
+void run_range(const char *calc, const Table &t, const Arg *args, bool outcome, RangeRun &run) {
+    const RangeArgs ra(t);
+    convert_range(calc, ra, args, outcome, run);
     std::memset(&run.out, 0, sizeof run.out);
     run.out.size = sizeof run.out;
-    run.status = cto_share_range(&in, &run.opt, &run.out);
+    run.status = cto_share_range(&run.in, &run.opt, &run.out);
     if (run.status == CTO_E_INVALID) {
         const int j = range_bad_arg(run.out.bad);
         throw_invalid_arg(calc, j, ra.label(j));
@@ -354,6 +374,53 @@ css::uno::Any range_swing(const Table &t, const Arg *args) {
         res.getArray()[i] = row;
     }
     return css::uno::Any(res);
+}
+
+// The range function DEALREASON is asked about: DEALRANGE, DEALRANGEOUTCOME, DEALSWING
+// (or share_range, share_swing), any case; None for any other name.
+enum class RangeFn { None, Range, Outcome, Swing };
+RangeFn range_function(const OUString &name) {
+    const OUString n = name.trim();
+    if (equals_ignore_case(n, "DEALRANGE") || equals_ignore_case(n, "share_range"))
+        return RangeFn::Range;
+    if (equals_ignore_case(n, "DEALRANGEOUTCOME")) return RangeFn::Outcome;
+    if (equals_ignore_case(n, "DEALSWING") || equals_ignore_case(n, "share_swing"))
+        return RangeFn::Swing;
+    return RangeFn::None;
+}
+
+// DEALREASON for a range function: its arguments (as given to DEALREASON) converted as
+// the function converts them, then the library's reason for the run; a value the add-in
+// cannot convert gives the add-in's own message.  Never fails on the user's input.
+OUString range_reason(const Table &t, RangeFn fn,
+                      const css::uno::Sequence<css::uno::Any> &given) {
+    const bool swing = fn == RangeFn::Swing;
+    const char *calc = swing ? "DEALSWING"
+                             : (fn == RangeFn::Outcome ? "DEALRANGEOUTCOME" : "DEALRANGE");
+    const sal_Int32 n = kRangeInputs + (swing ? 0 : cto_addin::kRangeExtras);
+    if (given.getLength() > n)
+        return OUString::createFromAscii(calc) + " takes at most " + OUString::number(n) +
+               " arguments; " + OUString::number(given.getLength()) + " were given";
+    std::vector<css::uno::Any> values(static_cast<size_t>(n));
+    for (sal_Int32 j = 0; j < given.getLength(); ++j) values[static_cast<size_t>(j)] = given[j];
+    std::vector<Arg> args;
+    for (const css::uno::Any &v : values) args.emplace_back(v);
+    const RangeArgs ra(t);
+    char text[1024];
+    try {
+        if (swing) {
+            const cto_range_input in = range_inputs(calc, ra, args.data(), CTO_RANGE_PERT);
+            cto_swing_explain(&in, nullptr, text, sizeof text);
+        } else {
+            RangeRun run;
+            convert_range(calc, ra, args.data(), fn == RangeFn::Outcome, run);
+            cto_range_explain(&run.in, &run.opt, nullptr, text, sizeof text);
+        }
+    } catch (const css::lang::IllegalArgumentException &e) {
+        return e.Message;
+    }
+    return OUString::createFromAscii(calc) + ": " +
+           OUString(text, static_cast<sal_Int32>(std::strlen(text)), RTL_TEXTENCODING_UTF8);
 }
 
 } // namespace

@@ -1,5 +1,6 @@
 // Glue test of DEALRANGE, DEALRANGEOUTCOME, DEALSWING and DEALOFFERPATH (src/ranges.hxx,
-// src/offers.hxx) against stand-ins for cto_share_range, cto_share_swing and
+// src/offers.hxx) and of DEALREASON for the range functions against stand-ins for
+// cto_share_range, cto_share_swing, cto_range_explain, cto_swing_explain and
 // cto_offer_path_rows that record what the glue hands over and return the status a test
 // asks for.  The expected conversions are the rules of addin/README.md "Ranges" and
 // "DEALOFFERPATH"; the expected error values those of "Error values" (Calc's codes from
@@ -53,6 +54,7 @@ struct Recorded {
     int64_t offer_rounds = 0, offer_capacity = 0;
     int offer_offerer = -1;
     int64_t path_rounds = 5000; // rounds the stand-in path has
+    bool explained_run = false; // the reason function was asked to run the function itself
 } rec;
 
 // The library's rules, simulated: a fixed input needs a number, a range low <= high.
@@ -118,6 +120,23 @@ int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
     out->row[0] = {1, 0.4, 0.2, 0.2, CTO_OK, CTO_E_NO_DEAL};
     out->row[1] = {0, 0.6, 0.7, 0.1, CTO_OK, CTO_OK};
     return out->status;
+}
+// The reasons: what the glue handed over is recorded, the text says a part of it.
+int cto_range_explain(const cto_range_input *in, const cto_range_options *opt,
+                      const cto_range_outcome *out, char *text, size_t size) {
+    rec.in = *in;
+    rec.opt = *opt;
+    rec.explained_run = out == nullptr;
+    std::snprintf(text, size, "range reason: kind %d, %d probabilities, digits %d",
+                  in->arg[1].kind, opt->n_probs, opt->digits);
+    return CTO_OK;
+}
+int cto_swing_explain(const cto_range_input *in, const cto_swing_outcome *out, char *text,
+                      size_t size) {
+    rec.in = *in;
+    rec.explained_run = out == nullptr;
+    std::snprintf(text, size, "swing reason: kind %d", in->arg[0].kind);
+    return CTO_OK;
 }
 // Row t (0-based): offer 10 + t, cutoff 5 + t, probabilities 0.001 and 0.001 (t + 1).
 int cto_offer_path_rows(double lo, double hi, double df, double dr, int64_t rounds, double known,
@@ -249,7 +268,7 @@ void check_range_errors(DealFunctions &f) {
     illegal_at(s, kArgShapeOpt + 3, "an unknown shape: Err:502");
     RangeCall d;
     d.opt[kArgDigitsOpt] = num(2.5);
-    illegal_at(d, kArgDigitsOpt + 3, "digits not whole: the library rejects it (digits)");
+    illegal_at(d, kArgDigitsOpt + 3, "digits not whole: Err:502 (it cannot become one)");
     RangeCall e;
     e.opt[kArgSeedOpt] = num(-1.0);
     illegal_at(e, kArgSeedOpt + 3, "a negative seed: Err:502");
@@ -337,6 +356,53 @@ void check_swing(DealFunctions &f) {
     a = c.args();
     r = call([&] { return f.share_swing(a.data()); });
     check(r.kind == Outcome::Illegal && r.position == 0, "DEALSWING: low above high is Err:502");
+}
+
+// DEALREASON for the range functions (addin/README.md "Why a cell fails"): the same
+// conversion as the function (src/ranges.hxx), the library's reason after the Calc name,
+// and what a value the add-in could not convert must be; never an error value.
+void check_range_reason(DealFunctions &f) {
+    auto reason = [&](const char *name, std::vector<css::uno::Any> as) {
+        OUString words;
+        f.reason(OUString::createFromAscii(name),
+                 css::uno::Sequence<css::uno::Any>(as.data(), static_cast<sal_Int32>(as.size()))) >>=
+            words;
+        return words;
+    };
+    const css::uno::Any uniform(cells(1, 2, {num(0.02), num(0.08)}));
+    check(reason("DEALRANGE", {num(0.05), uniform, num(30.0)}) ==
+              "DEALRANGE: range reason: kind 1, 1 probabilities, digits 3",
+          "reason: DEALRANGE's arguments read as DEALRANGE reads them (probability 0.5)");
+    check(rec.explained_run && rec.in.arg[1].low == 0.02 && rec.in.arg[1].high == 0.08 &&
+              rec.in.arg[0].mode == 0.05 && rec.in.arg[8].mode == kAbsent &&
+              rec.opt.probs[0] == 0.5,
+          "reason: a 1x2 range is uniform, left out is the default, the library runs it");
+    check(reason(" dealRangeOutcome ", {num(0.05), uniform, num(30.0)}) ==
+              "DEALRANGEOUTCOME: range reason: kind 1, 3 probabilities, digits 3",
+          "reason: DEALRANGEOUTCOME (any case) keeps the library's three probabilities");
+    check(reason("share_range", {num(0.05), uniform, num(30.0)}).startsWith("DEALRANGE: range"),
+          "reason: the catalogue-style name share_range");
+    std::vector<css::uno::Any> shape(16);
+    shape[0] = num(0.05), shape[1] = uniform, shape[2] = num(30.0), shape[15] = text("normal");
+    check(reason("DEALRANGE", shape) ==
+              "DEALRANGE: invalid argument 16 (Shape): \"pert\" or \"triangular\"",
+          "reason: an unknown shape is the add-in's own words");
+    const css::uno::Any four(cells(1, 4, {num(1.0), num(2.0), num(3.0), num(4.0)}));
+    check(reason("DEALRANGE", {num(0.05), four, num(30.0)}) ==
+              "DEALRANGE: invalid argument 2 (In2): one cell, or 2 cells (low, high) or 3 (low, "
+              "mode, high) in a row or a column",
+          "reason: a 1x4 range is the add-in's own words");
+    std::vector<css::uno::Any> digits(18);
+    digits[0] = num(0.05), digits[1] = uniform, digits[2] = num(30.0), digits[17] = num(2.5);
+    check(reason("DEALRANGE", digits) ==
+              "DEALRANGE: invalid argument 18 (Digits): a whole number",
+          "reason: digits not whole");
+    const css::uno::Any pert(cells(3, 1, {num(0.01), num(0.05), num(0.1)}));
+    check(reason("DEALSWING", {pert, num(0.08), num(30.0)}) == "DEALSWING: swing reason: kind 3",
+          "reason: DEALSWING, a 3x1 range is PERT");
+    check(reason("DEALSWING", std::vector<css::uno::Any>(15, num(1.0))) ==
+              "DEALSWING takes at most 14 arguments; 15 were given",
+          "reason: too many arguments for DEALSWING is a reason");
 }
 
 Result path(DealFunctions &f, std::initializer_list<css::uno::Any> opt, Mixed first = one(num(0.0))) {

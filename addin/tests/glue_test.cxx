@@ -277,6 +277,7 @@ int main() {
     check_range_errors(*f);
     check_range_arrays(*f);
     check_swing(*f);
+    check_range_reason(*f);
     check_offer_path(*f);
     std::printf("glue test: %d checks, %d failed\n", checks, failures);
     return failures ? EXIT_FAILURE : EXIT_SUCCESS;

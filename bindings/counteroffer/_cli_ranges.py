@@ -10,9 +10,12 @@ through.  The output has every input column, then ``status`` and, for each proba
 p, ``own_p<p>``, ``own_p<p>_half_width``, ``other_p<p>``, ``other_p<p>_half_width``,
 then the means, the probabilities of a rational deal and of each walk-away value binding,
 the fraction of edge-case draws and the points used.  A row the library finds invalid is
-reported on stderr and written with status ``invalid`` and empty results; a row short of
-the digit target is written with status ``precision_not_reached``.  A progress bar
-appears on stderr for files of 20 rows or more.  Exit status as the main command.
+reported on stderr with the library's reason (``cto_range_explain``) and written with
+status ``invalid`` and empty results; a row short of the digit target is written with
+status ``precision_not_reached`` and listed in the summary with the library's reason, as
+is a row with a range end outside its argument's plausible range (a percentage typed as a
+whole number?).  A progress bar appears on stderr for files of 20 rows or more.  Exit status as
+the main command.
 
 Results are model estimates under stated assumptions, not financial, legal or tax advice.
 """
@@ -141,23 +144,54 @@ def _cells(result: Any, decimal: str) -> List[str]:
     return out + [str(result.points_per_replicate * result.replicates)]
 
 
+class RowResult:
+    """One row's status, result cells, error message (invalid rows) and the library's
+    reason when it is more than "ok" (a precision not reached, a typing slip)."""
+
+    def __init__(self, status: str, cells: List[str], error: Optional[str] = None,
+                 reason: str = "ok") -> None:
+        self.status, self.cells, self.error, self.reason = status, cells, error, reason
+
+
 def _one_row(row: List[str], layout: Dict[str, Dict[str, int]], ns: argparse.Namespace,
-             probs: List[float]) -> Tuple[str, List[str], Optional[str]]:
-    """(status, result cells, error message) of one row."""
+             probs: List[float]) -> RowResult:
     try:
         kwargs = _row_values(row, layout, ns.decimal)
     except CellError as e:
-        return "invalid", [], str(e)
+        return RowResult("invalid", [], str(e))
     missing = [n for n in ("own_rate", "other_rate", "days") if n not in kwargs]
     if missing:
-        return "invalid", [], f"no value for {', '.join(missing)} (a value is required)"
+        return RowResult("invalid", [],
+                         f"no value for {', '.join(missing)} (a value is required)")
     try:
         with _errors.errstate(precision="ignore", implausible="ignore", indeterminate="ignore"):
             r = share_range(**kwargs, shape=ns.shape, probabilities=probs, seed=ns.seed,
                             replicates=ns.replicates, digits=ns.digits, log2_max=ns.log2_max)
     except _errors.InvalidArgumentError as e:
-        return "invalid", [], str(e)
-    return r.status, _cells(r, ns.decimal), None
+        return RowResult("invalid", [], str(e))
+    return RowResult(r.status, _cells(r, ns.decimal), reason=r.reason)
+
+
+class Notes:
+    """The rows whose reason from the library is more than "ok" (precision not reached,
+    a range end that looks like a typing slip), for the summary, in the library's words."""
+
+    SHOWN = 5
+
+    def __init__(self) -> None:
+        self.rows: List[Tuple[int, str]] = []
+
+    def add(self, row_no: int, result: RowResult) -> None:
+        if result.status != "invalid" and result.reason != "ok":
+            self.rows.append((row_no, result.reason))
+
+    def summary(self) -> str:
+        if not self.rows:
+            return ""
+        shown = "; ".join(f"row {r}: {m}" for r, m in self.rows[:self.SHOWN])
+        more = ", ..." if len(self.rows) > self.SHOWN else ""
+        return (f"counteroffer: {len(self.rows)} rows with a reason to look at (the results "
+                f"are written): {shown}{more}\n")
 
 
 def _probabilities(text: str, decimal: str) -> List[float]:
@@ -191,18 +225,21 @@ def _process(src: IO[str], dst: IO[str], ns: argparse.Namespace, stderr: IO[str]
     tally = Tally(stderr, ns.max_errors)
     writer = csv.writer(dst, delimiter=ns.delimiter, lineterminator="\n")
     writer.writerow(header + ["status"] + _output_names(probs))
+    notes = Notes()
     done = 0
     for row in reader:
         done += 1
         row = (row + [""] * len(header))[:len(header)]
-        status, cells, error = _one_row(row, layout, ns, probs)
-        if error:
-            tally.report(done, reader.line_num, error)
-        tally.counts[status] = tally.counts.get(status, 0) + 1
-        writer.writerow(row + [status] + (cells or [""] * len(_output_names(probs))))
+        result = _one_row(row, layout, ns, probs)
+        if result.error:
+            tally.report(done, reader.line_num, result.error)
+        notes.add(done, result)
+        tally.counts[result.status] = tally.counts.get(result.status, 0) + 1
+        writer.writerow(row + [result.status] +
+                        (result.cells or [""] * len(_output_names(probs))))
         progress.update(done)
     progress.update(done, final=True)
-    stderr.write(tally.summary(model_spec()))
+    stderr.write(tally.summary(model_spec()) + notes.summary())
     return 1 if tally.counts.get("invalid", 0) else 0
 
 

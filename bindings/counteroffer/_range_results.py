@@ -43,8 +43,10 @@ class RangeResult:
     """Result of share_range: quantiles of own and other's share (money, in the
     surplus's unit) at ``probabilities``, means, the probabilities that a deal is
     rational and that each walk-away value binds, the fraction of draws at an edge case,
-    the sample used, the status ("ok" or "precision not reached") and the generator's
-    spec version.  Model estimates under stated assumptions, not advice."""
+    the sample used, the status ("ok" or "precision not reached"), the generator's spec
+    version and the library's reason in words (``reason``: "ok", "ok, but <a range end
+    that looks like a typing slip>", or what precision was not reached and what to
+    change).  Model estimates under stated assumptions, not advice."""
 
     probabilities: Tuple[float, ...]
     own: Tuple[Estimate, ...]
@@ -62,6 +64,7 @@ class RangeResult:
     status: str
     precision_reached: bool
     inputs: Tuple[Tuple[str, Any], ...] = dataclasses.field(default=(), repr=False)
+    reason: str = dataclasses.field(default="ok", repr=False)
 
     def quantile(self, p: float) -> Estimate:
         """Own share's estimate at one of the requested probabilities."""
@@ -116,11 +119,14 @@ class SwingRow:
 class SwingResult:
     """Result of share_swing: own share with every input at its mode (``base``) and one
     row per uncertain input, largest swing first (a tornado chart).  One-at-a-time: it
-    ignores interactions, which share_range's quantiles include."""
+    ignores interactions, which share_range's quantiles include.  ``reason``: the
+    library's reason in words ("ok", or "ok, but <a range end that looks like a typing
+    slip>")."""
 
     base: float
     base_status: str
     rows: Tuple[SwingRow, ...]
+    reason: str = dataclasses.field(default="ok", repr=False)
 
     def to_frame(self) -> Any:
         """A pandas DataFrame, a row per uncertain input (its name as the index), largest

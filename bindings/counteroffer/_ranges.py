@@ -1,9 +1,10 @@
 """share_range and share_swing: the combined model from rates (solve_from_rates) with
 inputs given as ranges, through the library's ``cto_share_range`` / ``cto_share_swing``.
 
-This module converts the arguments, words the library's status and invalid-input index
-and applies the package's error policy (``errstate``); the validation, the sampling and
-the estimators are the library's (docs/models/ranges.md).
+This module converts the arguments and applies the package's error policy (``errstate``)
+to the library's status, with the library's reason in words (``cto_range_explain``,
+``cto_swing_explain``); the validation, its words, the sampling and the estimators are
+the library's (docs/models/ranges.md).
 """
 
 from __future__ import annotations
@@ -30,23 +31,6 @@ DEFAULTS: Dict[str, Any] = dict(_structs.RANGE_DEFAULTS)
 _INT_MAX = 2**31 - 1
 _SPEC: List[FunctionSpec] = []
 
-#: the words of the options' rules (the library's limits, ranges.h), by invalid index
-OPTION_RULES = {
-    14: ("probabilities", "1 to 32 probabilities, each strictly between 0 and 1 "
-                          "(a probability outside (0, 1) is invalid)"),
-    15: ("seed", "a whole number from 0 to 2**64 - 1"),
-    16: ("replicates", "2 to 256, with replicates x 2**log2_max at most 2**24"),
-    17: ("digits", "significant digits targeted, 1 to 15"),
-    18: ("log2_start", "1 <= log2_start <= log2_max"),
-    19: ("log2_max", "log2_start <= log2_max <= 24, with replicates x 2**log2_max at most "
-                     "2**24"),
-    20: ("threads", "0 to 64"),
-}
-RANGE_RULE = ("a range needs finite ends with low <= mode <= high: a low above its high, "
-              "or a mode outside low to high, is invalid; and every value in it must be "
-              "valid for the model")
-FIXED_ONLY = {"own_opens", "continuous"}
-
 
 def model_spec() -> FunctionSpec:
     """The 14 inputs of solve_from_rates (cto_range_input's order) as a FunctionSpec for
@@ -65,8 +49,8 @@ def model_spec() -> FunctionSpec:
 
 
 def _whole(name: str, value: Any, low: int = -_INT_MAX - 1, high: int = _INT_MAX) -> int:
-    """An option as an int for the library; out-of-range values are clamped to a value
-    the library rejects in turn (its message then shows the value given)."""
+    """An option as an int for the library; a value beyond a C int is clamped to one the
+    library rejects in turn (its reason then shows the clamped value)."""
     if isinstance(value, bool):
         raise _errors.InvalidArgumentError(f"share_range: {name} = {value!r} is invalid "
                                            "(a whole number is required)")
@@ -88,31 +72,10 @@ def _probabilities(value: Any) -> List[float]:
         ) from None
 
 
-def _reason(spec: FunctionSpec, args: Sequence[Tuple[int, float, float, float]],
-            j: int) -> str:
-    """Why input j is invalid, in words: the argument's rule from the library's table,
-    and for a range the rule of a range (the library gives the index only)."""
-    arg = spec.args[j]
-    if arg.name in FIXED_ONLY and args[j][0] != _structs.RANGE_FIXED:
-        return f"{arg.name} must be fixed (True or False), not a range"
-    if args[j][0] == _structs.RANGE_FIXED:
-        return arg.help
-    return f"{RANGE_RULE}; {arg.name}: {arg.help}"
-
-
-def invalid(function: str, spec: FunctionSpec, args: Sequence[Tuple[int, float, float, float]],
-            shown: Sequence[Any], bad: int, options: Dict[str, Any]) -> _errors.InvalidArgumentError:
-    """The package's ValueError for the library's invalid-input index `bad`."""
-    if 0 <= bad < len(spec.args):
-        return _errors.InvalidArgumentError(
-            f"{function}: {spec.args[bad].name} = {fmt(shown[bad])} is invalid "
-            f"({_reason(spec, args, bad)})")
-    if bad in OPTION_RULES:
-        name, rule = OPTION_RULES[bad]
-        return _errors.InvalidArgumentError(
-            f"{function}: {name} = {fmt(options.get(name))} is invalid ({rule})")
-    return _errors.InvalidArgumentError(
-        f"{function}: invalid arguments ({_core.status_message(Status.INVALID)})")
+def invalid(function: str, out: Dict[str, Any]) -> _errors.InvalidArgumentError:
+    """The package's ValueError for the library's invalid outcome: its reason in words
+    (``cto_range_explain``: the input by its argument name or the option, and its rule)."""
+    return _errors.InvalidArgumentError(f"{function}: {out['reason']}")
 
 
 def convert(function: str, values: Sequence[Any],
@@ -134,16 +97,6 @@ def plausible(spec: FunctionSpec, args: Sequence[Tuple[int, float, float, float]
                            for a in args])
 
 
-def _precision_message(out: Dict[str, Any], digits: int) -> str:
-    short = [f"p = {p:g}: {e['value']:.6g} ± {e['half_width']:.2g} ({e['digits']} digits)"
-             for p, e in zip(out["probabilities"], out["own"]) if e["digits"] < digits]
-    n = out["points_per_replicate"]
-    return (f"share_range: precision not reached: {len(short)} quantile(s) of own share are "
-            f"short of {digits} significant digits at {out['replicates']} x {n} points "
-            f"({'; '.join(short)}); the estimates are reported with their half-widths "
-            f"(a larger log2_max, or fewer digits, may reach the target)")
-
-
 def _result(out: Dict[str, Any], names: Sequence[str], shown: Sequence[Any]) -> RangeResult:
     status = out["status"]
     return RangeResult(
@@ -154,7 +107,7 @@ def _result(out: Dict[str, Any], names: Sequence[str], shown: Sequence[Any]) -> 
         estimate(out["edge_fraction"]), int(out["points_per_replicate"]),
         int(out["replicates"]), int(out["dimension"]), int(out["spec_version"]),
         _core.status_name(status), status == Status.OK,
-        tuple(zip(names, shown)))
+        tuple(zip(names, shown)), str(out["reason"]))
 
 
 def share_range(
@@ -193,25 +146,22 @@ def share_range(
               own_inside, other_inside, own_outside, other_outside, surplus, own_opens, basis,
               continuous)
     spec, args, shown = convert("share_range", values, shape)
-    options = {"probabilities": probabilities, "seed": seed, "replicates": replicates,
-               "digits": digits, "log2_start": log2_start, "log2_max": log2_max,
-               "threads": threads}
     seed_int = _whole("seed", seed, -1, 2**64 - 1)
-    if seed_int < 0:
-        raise invalid("share_range", spec, args, shown, 15, options)
+    if seed_int < 0:  # the option is an unsigned 64-bit integer: a conversion
+        raise _errors.InvalidArgumentError(f"share_range: seed = {fmt(seed)} is invalid "
+                                           "(a whole number from 0 to 2**64 - 1)")
     out = _structs.share_range(
         args, _probabilities(probabilities), seed_int, _whole("replicates", replicates),
         _whole("digits", digits), _whole("log2_start", log2_start),
         _whole("log2_max", log2_max), _whole("threads", threads))
     status = out["status"]
     if status == Status.INVALID:
-        raise invalid("share_range", spec, args, shown, out["bad"], options)
+        raise invalid("share_range", out)
     plausible(spec, args)
     if status == _structs.E_PRECISION:
-        act("precision", _precision_message(out, int(digits)))
+        act("precision", f"share_range: {out['reason']}")
     elif status != Status.OK:
-        act(STATUS_NAMES.get(status, "internal"),
-            f"share_range: {_core.status_message(status)}")
+        act(STATUS_NAMES.get(status, "internal"), f"share_range: {out['reason']}")
     return _result(out, [a.name for a in spec.args], shown)
 
 
@@ -238,12 +188,13 @@ def share_swing(
     out = _structs.share_swing(args)
     status = out["status"]
     if status == Status.INVALID:
-        raise invalid("share_swing", spec, args, shown, out["bad"], {})
+        raise invalid("share_swing", out)
     plausible(spec, args)
     if status != Status.OK:
-        act(STATUS_NAMES.get(status, "internal"), f"share_swing: {_core.status_message(status)}")
+        act(STATUS_NAMES.get(status, "internal"), f"share_swing: {out['reason']}")
     rows = tuple(
         SwingRow(spec.args[j].name, args[j][1], args[j][3], float(lo), float(hi), float(sw),
                  _core.status_name(sl), _core.status_name(sh))
         for j, lo, hi, sw, sl, sh in out["rows"])
-    return SwingResult(float(out["base"]), _core.status_name(out["base_status"]), rows)
+    return SwingResult(float(out["base"]), _core.status_name(out["base_status"]), rows,
+                       str(out["reason"]))

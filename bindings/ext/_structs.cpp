@@ -1,8 +1,9 @@
 // counteroffer._structs: the struct entry points of the C ABI that are not rows of the
 // function table -- cto_share_range, cto_share_swing (ranges under uncertainty) and
 // cto_offer_path_rows (the offer path, a row per round).  Types are converted and
-// nothing else: every check is the library's, and its status and `bad` index are
-// returned as they are for the Python layer to word and apply its error policy.
+// nothing else: every check is the library's, and its status, `bad` index and reason in
+// words (cto_range_explain, cto_swing_explain on the outcome) are returned as they are
+// for the Python layer to apply its error policy.
 // The library runs with the GIL released (it allocates nothing Python owns).
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
@@ -12,6 +13,7 @@
 #include <cstring>
 #include <limits>
 #include <stdexcept>
+#include <string>
 #include <tuple>
 #include <vector>
 
@@ -20,6 +22,9 @@
 namespace py = pybind11;
 
 namespace {
+
+// The longest reason in words kept (the library cuts a longer one).
+constexpr size_t kReasonSize = 1024;
 
 // (kind, low, mode, high) per input, in the catalogue order of solve_from_rates.
 using ArgTuple = std::tuple<int, double, double, double>;
@@ -56,9 +61,11 @@ py::dict share_range(const std::vector<ArgTuple> &args, const std::vector<double
     const cto_range_input in = make_input(args);
     cto_range_options opt;
     cto_range_default_options(&opt);
-    // More than the struct holds is the library's "probabilities" error: pass none.
-    opt.n_probs = probs.size() > CTO_RANGE_MAX_PROBS ? 0 : static_cast<int>(probs.size());
-    for (int k = 0; k < opt.n_probs; ++k) opt.probs[k] = probs[static_cast<size_t>(k)];
+    // More than the struct holds is the library's "probabilities" error (it reads none of
+    // them then): the count is passed as given, the values that fit are stored.
+    const size_t n = std::min<size_t>(probs.size(), std::numeric_limits<int>::max());
+    opt.n_probs = static_cast<int>(n);
+    for (size_t k = 0; k < n && k < CTO_RANGE_MAX_PROBS; ++k) opt.probs[k] = probs[k];
     opt.seed = seed;
     opt.replicates = replicates;
     opt.digits = digits;
@@ -68,13 +75,16 @@ py::dict share_range(const std::vector<ArgTuple> &args, const std::vector<double
     cto_range_outcome out;
     std::memset(&out, 0, sizeof out);
     out.size = sizeof out;
+    char reason[kReasonSize];
     {
         py::gil_scoped_release release;
         cto_share_range(&in, &opt, &out);
+        cto_range_explain(&in, &opt, &out, reason, sizeof reason);
     }
     py::dict d;
     d["status"] = out.status;
     d["bad"] = out.bad;
+    d["reason"] = std::string(reason);
     d["spec_version"] = out.spec_version;
     py::list p, own, other;
     for (int k = 0; k < out.n_probs && k < CTO_RANGE_MAX_PROBS; ++k) {
@@ -103,13 +113,16 @@ py::dict share_swing(const std::vector<ArgTuple> &args) {
     cto_swing_outcome out;
     std::memset(&out, 0, sizeof out);
     out.size = sizeof out;
+    char reason[kReasonSize];
     {
         py::gil_scoped_release release;
         cto_share_swing(&in, &out);
+        cto_swing_explain(&in, &out, reason, sizeof reason);
     }
     py::dict d;
     d["status"] = out.status;
     d["bad"] = out.bad;
+    d["reason"] = std::string(reason);
     d["base"] = out.base;
     d["base_status"] = out.base_status;
     py::list rows;
@@ -186,9 +199,10 @@ PYBIND11_MODULE(_structs, m) {
     m.def("share_range", &share_range, py::arg("args"), py::arg("probabilities"),
           py::arg("seed"), py::arg("replicates"), py::arg("digits"), py::arg("log2_start"),
           py::arg("log2_max"), py::arg("threads"),
-          "cto_share_range: args are 14 (kind, low, mode, high); a dict of the outcome");
+          "cto_share_range: args are 14 (kind, low, mode, high); a dict of the outcome "
+          "with the reason in words (cto_range_explain)");
     m.def("share_swing", &share_swing, py::arg("args"),
-          "cto_share_swing: a dict with status, bad, base and the rows "
+          "cto_share_swing: a dict with status, bad, reason, base and the rows "
           "(input, at_low, at_high, swing, status_low, status_high)");
     m.def("offer_path_rows", &offer_path_rows, py::arg("private_low"), py::arg("private_high"),
           py::arg("offerer_factor"), py::arg("responder_factor"), py::arg("rounds"),

@@ -15,6 +15,10 @@ say "the shipped extension: no diagnostic function, #N/A explained, the caution 
 "$PY" "$CTO_ROOT/tests/sheets/check_oxt.py" "$CTO_ADDIN_BUILD/addin/counteroffer.oxt" \
   --test-build "$CTO_OXT"
 
+say "the shipped .oxt and the test build carry the direction numbers' source and licence note"
+/usr/bin/python3 "$CTO_ROOT/tests/install/check-notice.py" \
+  "$CTO_ADDIN_BUILD/addin/counteroffer.oxt" "$CTO_OXT"
+
 say "UNO glue: status mapping and argument conversion"
 "$CTO_ADDIN_BUILD/addin/addin_glue_test"
 

@@ -5,7 +5,8 @@
 //   - a finite output whenever the status is ok;
 //   - the named function and the table entry point agree bit for bit;
 //   - solve: when a deal is rational, own + other = surplus and each side gets at least
-//     its no-deal payoff.
+//     its no-deal payoff;
+//   - share_range and share_swing: a known status and a reason in words of its own.
 // Any violation aborts (a finding).  Build and run: tests/fuzz/run-fuzz.sh.
 #include <fuzzer/FuzzedDataProvider.h>
 
@@ -172,6 +173,14 @@ void fuzz_solve(FuzzedDataProvider &p) {
     }
 }
 
+// A range reason: terminated inside the buffer, not empty, never a fallback text.
+void check_range_reason(const char *text, size_t size, const char *fn) {
+    if (!std::memchr(text, '\0', size)) finding("reason not terminated", fn);
+    if (text[0] == '\0') finding("empty reason", fn);
+    for (const char *fallback : {"not a valid range", "invalid input (index", " is invalid"})
+        if (std::strstr(text, fallback)) finding("a fallback reason", fn);
+}
+
 // The ranges engine through the C ABI with small sizes (2 to 4 replicates of at most 2^6
 // points): any kinds and values; the status is known, the outcome written, and an ok
 // status has finite quantiles in order.
@@ -210,6 +219,18 @@ void fuzz_range(FuzzedDataProvider &p) {
     sw.size = sizeof sw;
     const int ss = cto_share_swing(&in, &sw);
     if (ss < CTO_OK || ss > CTO_E_PRECISION || ss == CTO_E_INTERNAL) finding("unknown or internal status", "share_swing");
+    // The reasons in words for both outcomes (worded without running again): the same
+    // status, a NUL-terminated text, and a reason of its own for every invalid index
+    // (none of the fallbacks for a verdict that no part of the input explains).
+    char reason[256];
+    std::memset(reason, 'x', sizeof reason);
+    if (cto_range_explain(&in, &opt, &out, reason, sizeof reason) != st)
+        finding("range explain status differs", "share_range");
+    check_range_reason(reason, sizeof reason, "share_range");
+    std::memset(reason, 'x', sizeof reason);
+    if (cto_swing_explain(&in, &sw, reason, sizeof reason) != ss)
+        finding("swing explain status differs", "share_swing");
+    check_range_reason(reason, sizeof reason, "share_swing");
 }
 
 }  // namespace

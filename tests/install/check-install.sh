@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# Installs the core into a scratch prefix, then builds and runs a consumer twice: once
-# with find_package(counteroffer) and once with pkg-config.
+# Installs the core into a scratch prefix (with the Joe-Kuo notice), then builds and runs
+# a consumer twice: once with find_package(counteroffer) and once with pkg-config.
 set -euo pipefail
 root="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 work="$(mktemp -d)"
@@ -8,6 +8,8 @@ trap 'rm -rf "$work"' EXIT
 cmake -S "$root" -B "$work/build" -DCTO_BUILD_TESTS=OFF -DCTO_BUILD_EXAMPLES=OFF >/dev/null
 cmake --build "$work/build" -j2 >/dev/null
 cmake --install "$work/build" --prefix "$work/prefix" >/dev/null
+# The direction numbers' source and licence note is installed (share/doc/counteroffer).
+/usr/bin/python3 "$root/tests/install/check-notice.py" "$work/prefix"
 lib="$(ls -d "$work"/prefix/lib*/ | head -n1)"
 test -L "$lib/libcounteroffer.so.1" || { echo "missing SONAME link libcounteroffer.so.1"; exit 1; }
 readelf -d "$lib/libcounteroffer.so" | grep -q 'SONAME.*libcounteroffer.so.1' || { echo "bad SONAME"; exit 1; }

@@ -47,7 +47,8 @@ def test_rows_are_share_range_runs():
                                                        abs=1e-13)
     assert rows[3]["status"] == "invalid" and rows[3]["own_p0.5"] == ""
     assert rows[4]["status"] == "invalid"
-    assert "row 4 (line 5): share_range: other_rate = uniform(0.16, 0.04) is invalid" in err
+    # the library's reason (docs/models/ranges.md "Reasons in words")
+    assert "row 4 (line 5): share_range: other_rate: low 0.16 is above high 0.04\n" in err
     assert "row 5 (line 6)" in err and "not a number" in err
     assert "5 rows (3 ok, 2 invalid)" in err
 
@@ -70,6 +71,25 @@ def test_precision_not_reached_rows_and_progress_bar():
     assert [r["status"] for r in rows] == ["precision_not_reached"] * 3
     assert rows[0]["own_p0.5"] != ""
     assert "rows" in err  # the progress bar (forced) and the summary
+    # each row's reason in the summary, in the library's words (the same as Python's)
+    with co.errstate(precision="ignore"):
+        reason = co.share_range(0.08, (0.04, 0.16), 30, digits=15, log2_max=11).reason
+    assert reason.startswith("precision not reached: 15 significant digits not reached")
+    assert ("counteroffer: 3 rows with a reason to look at (the results are written): "
+            f"row 1: {reason}; row 2: {reason}; row 3: {reason}\n") in err
+
+
+def test_rows_with_a_typed_percentage_in_the_summary():
+    # other_rate's high typed as 8 for 8%: valid, computed, flagged with the library's
+    # reason (the plausible range of a rate, 0 to 1 a year: common practice, no source)
+    text = ("deal,own_rate,other_rate_low,other_rate_high,days\n"
+            "Slip,0.08,0.04,8,30\nFine,0.08,0.04,0.08,30\n")
+    code, rows, err = run(["-f", "share_range", "--digits", "2"], text)
+    assert code == 0 and [r["status"] for r in rows] == ["ok", "ok"]
+    assert ("counteroffer: 1 rows with a reason to look at (the results are written): row 1: "
+            "ok, but other_rate high = 8 is outside the usual 0 to 1: above 100% a year: a "
+            "percentage typed as a whole number? (8% is 0.08)\n") in err
+    assert "row 2" not in err
 
 
 def test_usage_errors():

@@ -387,7 +387,7 @@ def ranges_rows():
     for i, row in enumerate(rows):
         row["formula_text_row"] = 2 if i < 3 else 5
     cases = (range_cases.range_values(share_rates, Text) + range_cases.offer_values()
-             + range_cases.ERRORS)
+             + range_cases.ERRORS + range_cases.reason_values(Text))
     return rows + scalar_rows(cases)
 
 

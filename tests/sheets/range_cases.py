@@ -184,6 +184,64 @@ def offer_matrix_rows():
     ]
 
 
+def reason_values(text):
+    """DEALREASON for DEALRANGE, DEALRANGEOUTCOME and DEALSWING: the library's reason
+    (cto_range_explain, cto_swing_explain) for the same arguments, read as the range
+    functions read them.  The rules are docs/models/ranges.md "Inputs, options, outputs";
+    the words are the project's contract, docs/models/ranges.md "Reasons in words"; the
+    add-in's own words for a value it cannot convert are addin/README.md's."""
+    words = 'docs/models/ranges.md "Reasons in words": '
+    slip = ("DEALRANGE: ok, but other_rate high = 8 is outside the usual 0 to 1: above 100% a "
+            "year: a percentage typed as a whole number? (8% is 0.08)")
+    precision = ('=ISNUMBER(FIND("precision not reached: 15 significant digits not reached '
+                 'at 2^20 points per replicate (16 replicates): own share at p = 0.5 has";'
+                 'DEALREASON("DEALRANGE";0.08;{0.04;0.16};30%s0.5;;0;15)))' % SKIP_TO_PROB)
+    return [
+        ("reason: range ok", '=DEALREASON("DEALRANGE";0.08;{0.04;0.16};30)',
+         text("DEALRANGE: ok"), words + "a valid run"),
+        ("reason: a low above its high", '=DEALREASON("DEALRANGE";0.08;{0.16;0.04};30)',
+         text("DEALRANGE: other_rate: low 0.16 is above high 0.04"),
+         words + "low <= high (the engine's first check of a range)"),
+        ("reason: a mode outside its range",
+         '=DEALREASON("DEALRANGE";0.08;{0.04;0.2;0.16};30)',
+         text("DEALRANGE: other_rate: mode 0.2 is outside low 0.04 to high 0.16"),
+         words + "low <= mode <= high"),
+        ("reason: a range reaching a value the model refuses",
+         '=DEALREASON("DEALRANGE";0.08;0.1;30;{0;1.5})',
+         text("DEALRANGE: breakdown_prob at its high: breakdown_prob = 1.5 is outside 0 to 1"),
+         words + "the model at each uncertain input's high; a probability is in [0, 1]"),
+        ("reason: text where a number is needed", '=DEALREASON("DEALRANGE";"x";0.1;30)',
+         text("DEALRANGE: own_rate is empty or not a number"),
+         words + "text is NaN (addin/README.md), which the library refuses"),
+        ("reason: own_opens as a range", '=DEALREASON("DEALRANGE";0.08;0.1;30;;;;;;;;;{0;1})',
+         text("DEALRANGE: own_opens must be a fixed 0 or 1 (FALSE or TRUE), not a range"),
+         words + "own_opens and continuous must be fixed at 0 or 1"),
+        ("reason: probability 1",
+         '=DEALREASON("DEALRANGE";0.08;{0.04;0.16};30%s1)' % SKIP_TO_PROB,
+         text("DEALRANGE: probability 1 is not strictly between 0 and 1"),
+         words + "every probability in (0, 1)"),
+        ("reason: an unknown shape",
+         '=DEALREASON("DEALRANGE";0.08;{0.04;0.08;0.16};30%s0.5;"normal")' % SKIP_TO_PROB,
+         text('DEALRANGE: invalid argument 16 (Shape): "pert" or "triangular"'),
+         "addin/README.md: the shape is \"pert\" or \"triangular\" (the add-in's words)"),
+        ("reason: 4 cells for one input",
+         '=DEALREASON("DEALRANGE";0.08;{0.04;0.08;0.12;0.16};30)',
+         text("DEALRANGE: invalid argument 2 (Other rate): one cell, or 2 cells (low, high) "
+              "or 3 (low, mode, high) in a row or a column"),
+         "addin/README.md: an input is 1, 2 or 3 cells (the add-in's words)"),
+        ("reason: a range end typed as 8 for 8%", '=DEALREASON("DEALRANGE";0.08;{0.04;8};30)',
+         text(slip), words + "plausible range of a rate (common practice, no source)"),
+        ("reason: precision not reached (Err:523 in DEALRANGE)", precision, 1.0,
+         words + "15 digits are beyond the cap of 16 x 2^20 points; the rest of the text "
+         "holds the estimate and its half-width", 0.0),
+        ("reason: the outcome form", '=DEALREASON("DEALRANGEOUTCOME";0.08;{0.04;0.16};30)',
+         text("DEALRANGEOUTCOME: ok"), words + "a valid run"),
+        ("reason: the swing", '=DEALREASON("DEALSWING";0.08;{0.16;0.04};30)',
+         text("DEALSWING: other_rate: low 0.16 is above high 0.04"),
+         words + "the swing checks its inputs as share_range does"),
+    ]
+
+
 BAD = "bad input -> invalid argument (docs/models/ranges.md; docs/reference/functions.md)"
 ERRORS = [
     ("range: low above high", "=DEALRANGE(0.08;{0.16;0.04};30)", "Err:502",

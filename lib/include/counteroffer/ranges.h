@@ -129,5 +129,32 @@ typedef struct cto_swing_outcome {
  *  (out->bad); CTO_E_INTERNAL.  Added in 1.1. */
 CTO_API int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out);
 
+/*! cto_range_explain: why cto_share_range gives what it gives for in and opt, in words
+ *  (docs/models/ranges.md "Reasons in words"), written into text (at most size bytes,
+ *  NUL-terminated; a longer reason is cut; text may be NULL with size 0).  The reason
+ *  words the run's status and invalid index (the checks are the engine's, never repeated
+ *  here): an input by its argument name and what is wrong with its range ("other_rate:
+ *  low 0.12 is above high 0.08"; "other_rate: mode 0.2 is outside low 0.05 to high 0.1";
+ *  "own_opens must be a fixed 0 or 1 (FALSE or TRUE), not a range"); the model's own
+ *  reason where it refuses a value the engine probes, as cto_explain words it
+ *  ("breakdown_prob at its high: breakdown_prob = 1.5 is outside 0 to 1"); an option
+ *  ("probability 1 is not strictly between 0 and 1"; "replicates = 1: at least 2 ...");
+ *  a struct that is NULL or too small; draws without a single answer; precision not
+ *  reached (the digits asked for, each quantile short of them, and which option to
+ *  change); working memory; or "ok", with "ok, but other_rate high = 8 is outside the
+ *  usual 0 to 1: ..." for a valid value outside its argument's plausible range
+ *  (cto_arg_plausible_range of solve_from_rates).  out: NULL to run cto_share_range here,
+ *  or the outcome cto_share_range wrote for the same in and opt, worded without running
+ *  it again.  Returns that run's status (CTO_E_INVALID also for an out whose size is too
+ *  small).  Added in 1.1. */
+CTO_API int cto_range_explain(const cto_range_input *in, const cto_range_options *opt,
+                              const cto_range_outcome *out, char *text, size_t size);
+
+/*! cto_swing_explain: the same for cto_share_swing (its inputs' reasons, or "ok");
+ *  out: NULL to run cto_share_swing here, or the outcome it wrote for the same in.
+ *  Added in 1.1. */
+CTO_API int cto_swing_explain(const cto_range_input *in, const cto_swing_outcome *out,
+                              char *text, size_t size);
+
 
 #endif /* COUNTEROFFER_RANGES_H */

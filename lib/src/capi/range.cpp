@@ -1,12 +1,14 @@
 // cto_share_range, cto_share_swing, cto_range_default_options: the ranges engine
-// (lib/src/range/) behind the public structs.  The public and the core structs have the
-// same layout (checked below), so the entry points copy them whole.
+// (lib/src/range/) behind the public structs; cto_range_explain, cto_swing_explain: the
+// reasons in words for their outcomes (table/range_reasons.hpp).  The public and the core
+// structs have the same layout (checked below), so the entry points copy them whole.
 #include <cstddef>
 #include <cstring>
 #include <type_traits>
 
 #include "../core.hpp"
 #include "../range/rates_model.hpp"
+#include "../table/range_reasons.hpp"
 
 namespace range = cto::core::range;
 
@@ -42,6 +44,21 @@ bool load(const Pub *p, Core *c) {
     if (!p || p->size < sizeof(Pub)) return false;
     std::memcpy(c, p, sizeof(Core));
     return true;
+}
+
+// The reason for a struct that cannot be read (invalid index 21): in, then opt.
+void struct_reason(const cto_range_input *in, const cto_range_options *opt, bool with_opt,
+                   char *text, size_t size) {
+    if (!in || in->size < sizeof(cto_range_input))
+        cto::table::size_reason("in", "cto_range_input", !in, in ? in->size : 0,
+                                sizeof(cto_range_input), text, size);
+    else if (with_opt)
+        cto::table::size_reason("opt", "cto_range_options", !opt, opt ? opt->size : 0,
+                                sizeof(cto_range_options), text, size);
+}
+
+void clear_text(char *text, size_t size) {
+    if (text && size > 0) text[0] = '\0';
 }
 
 }  // namespace
@@ -96,6 +113,67 @@ CTO_API int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
         return out->status;
     } catch (...) {
         out->status = CTO_E_INTERNAL;
+        return CTO_E_INTERNAL;
+    }
+}
+
+CTO_API int cto_range_explain(const cto_range_input *in, const cto_range_options *opt,
+                              const cto_range_outcome *out, char *text, size_t size) {
+    clear_text(text, size);
+    try {
+        if (out && out->size < sizeof(cto_range_outcome)) {
+            cto::table::size_reason("out", "cto_range_outcome", false, out->size,
+                                    sizeof(cto_range_outcome), text, size);
+            return CTO_E_INVALID;
+        }
+        cto_range_outcome run;
+        if (!out) {
+            std::memset(&run, 0, sizeof run);
+            run.size = sizeof run;
+            cto_share_range(in, opt, &run);
+            out = &run;
+        }
+        range::RangeIn ci;
+        range::RangeOptions co;
+        range::RangeOut r;
+        std::memcpy(&r, out, sizeof r);
+        if (!load(in, &ci) || !load(opt, &co))
+            struct_reason(in, opt, true, text, size);
+        else
+            cto::table::range_reason(ci, co, r, text, size);
+        return r.status;
+    } catch (...) {  // nothing here throws; a defect is reported, never propagated
+        clear_text(text, size);
+        return CTO_E_INTERNAL;
+    }
+}
+
+CTO_API int cto_swing_explain(const cto_range_input *in, const cto_swing_outcome *out,
+                              char *text, size_t size) {
+    clear_text(text, size);
+    try {
+        if (out && out->size < sizeof(cto_swing_outcome)) {
+            cto::table::size_reason("out", "cto_swing_outcome", false, out->size,
+                                    sizeof(cto_swing_outcome), text, size);
+            return CTO_E_INVALID;
+        }
+        cto_swing_outcome run;
+        if (!out) {
+            std::memset(&run, 0, sizeof run);
+            run.size = sizeof run;
+            cto_share_swing(in, &run);
+            out = &run;
+        }
+        range::RangeIn ci;
+        range::SwingOut r;
+        std::memcpy(&r, out, sizeof r);
+        if (!load(in, &ci))
+            struct_reason(in, nullptr, false, text, size);
+        else
+            cto::table::swing_reason(ci, r, text, size);
+        return r.status;
+    } catch (...) {
+        clear_text(text, size);
         return CTO_E_INTERNAL;
     }
 }

@@ -6,19 +6,16 @@
 namespace cto::core::range {
 namespace {
 
-enum : int { kOwnOpens = 11, kContinuous = 13 };
-
-// A flag slot must be a fixed 0 or 1.
-bool flag_ok(const RangeArg &a) { return a.kind == kFixed && (a.mode == 0.0 || a.mode == 1.0); }
-
 // The first invalid flag slot, or -1.
 int check_flags(const RangeIn &in) {
-    if (!flag_ok(in.arg[kOwnOpens])) return kOwnOpens;
-    if (!flag_ok(in.arg[kContinuous])) return kContinuous;
+    if (!flag_ok(in.arg[kOwnOpensSlot])) return kOwnOpensSlot;
+    if (!flag_ok(in.arg[kContinuousSlot])) return kContinuousSlot;
     return -1;
 }
 
 }  // namespace
+
+bool flag_ok(const RangeArg &a) { return a.kind == kFixed && (a.mode == 0.0 || a.mode == 1.0); }
 
 int rates_draw(const void *, const double *x, Draw *d, int *bad) {
     const SolveRatesIn in{x[0], x[1], x[2], x[3], x[4],        x[5],  x[6],

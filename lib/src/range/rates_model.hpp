@@ -55,6 +55,12 @@
 
 namespace cto::core::range {
 
+// The slots of own_opens and continuous: each must be a fixed 0 or 1 (checked first).
+inline constexpr int kOwnOpensSlot = 11, kContinuousSlot = 13;
+
+// Whether a flag slot's input is a fixed 0 or 1.
+bool flag_ok(const RangeArg &a);
+
 // The model callback over solve_rates (x: the 14 inputs in catalogue order).
 int rates_draw(const void *ctx, const double *x, Draw *d, int *bad);
 

@@ -29,6 +29,8 @@ inline constexpr int kMaxProbs = 32;       // probabilities per call
 inline constexpr int kMaxReplicates = 256; // t quantiles are tabulated to R - 1 = 255
 inline constexpr int kMaxLog2 = 24;        // points per replicate at most 2^24
 inline constexpr int kMaxLog2Total = 24;   // replicates x points at most 2^24 (memory cap)
+inline constexpr int kMaxDigits = 15;      // significant digits targeted at most
+inline constexpr int kMaxWorkerThreads = 64;  // the threads option at most
 
 // Status appended for share_range (proposed CTO_E_PRECISION in the public header): every
 // output is an estimate, but the half-width of some requested quantile of own share is

@@ -2,52 +2,13 @@
 // name) and says what is wrong in plain words; numbers are written locale-independently.
 #include "reasons.hpp"
 
-#include <charconv>
 #include <cmath>
-#include <cstdio>
 #include <cstring>
+
+#include "text.hpp"
 
 namespace cto::table {
 namespace {
-
-// A fixed-size text without allocation: appends are cut at the capacity.
-class Str {
-public:
-    Str() { buf_[0] = '\0'; }
-    Str(const char *s) { *this += s; }  // NOLINT: implicit on purpose
-    Str &operator+=(const char *s) {
-        for (; s && *s && len_ < kCap - 1; ++s) buf_[len_++] = *s;
-        buf_[len_] = '\0';
-        return *this;
-    }
-    Str &operator+=(const Str &o) { return *this += o.c_str(); }
-    friend Str operator+(Str a, const Str &b) { return a += b; }
-    friend Str operator+(Str a, const char *b) { return a += b; }
-    bool empty() const { return len_ == 0; }
-    const char *c_str() const { return buf_; }
-    size_t size() const { return len_; }
-
-private:
-    static constexpr size_t kCap = 768;
-    char buf_[kCap];
-    size_t len_ = 0;
-};
-
-Str num(double v) {
-    if (std::isnan(v)) return "empty or not a number";
-    if (std::isinf(v)) return v > 0 ? "infinity" : "-infinity";
-    char buf[32];
-    const auto res = std::to_chars(buf, buf + sizeof buf - 1, v, std::chars_format::general, 10);
-    *res.ptr = '\0';
-    return buf;
-}
-
-Str whole(long long v) {
-    char buf[32];
-    const auto res = std::to_chars(buf, buf + sizeof buf - 1, v);
-    *res.ptr = '\0';
-    return buf;
-}
 
 Str choices_text(const cto_arg_info &a) {
     Str s;
@@ -126,8 +87,16 @@ Str no_deal_reason(const Row &r, const double *args, const double *out) {
                                  : "); the result is own's no-deal payoff");
 }
 
-// The clause of the function's status text that starts with `status` ("indeterminate
-// (both factors 1): NaN"), up to the next ';', or "".
+Str ok_reason(const Row &r, const double *args) {
+    for (int j = 0; j < r.info.n_args; ++j) {
+        const Str note = slip_note(r, j, r.info.args[j].name, args[j]);
+        if (!note.empty()) return "ok, but " + note;
+    }
+    return "ok";
+}
+
+}  // namespace
+
 Str status_clause(const Row &r, const char *status) {
     const char *all = r.info.statuses ? r.info.statuses : "";
     const char *at = std::strstr(all, status);
@@ -141,25 +110,19 @@ Str status_clause(const Row &r, const char *status) {
     return s;
 }
 
-Str ok_reason(const Row &r, const double *args) {
-    for (int j = 0; j < r.info.n_args; ++j) {
-        if (r.plausible[j][0] == 0.0) continue;
-        const double v = args[j], lo = r.plausible[j][1], hi = r.plausible[j][2];
-        if (v >= lo && v <= hi) continue;
-        return Str("ok, but ") + r.info.args[j].name + " = " + num(v) +
-               " is outside the usual " + num(lo) + " to " + num(hi) + ": " + r.slip[j];
-    }
-    return "ok";
+Str slip_note(const Row &r, int j, const char *label, double v) {
+    if (j < 0 || j >= r.info.n_args || r.plausible[j][0] == 0.0) return Str();
+    const double lo = r.plausible[j][1], hi = r.plausible[j][2];
+    if (v >= lo && v <= hi) return Str();
+    return Str(label) + " = " + num(v) + " is outside the usual " + num(lo) + " to " + num(hi) +
+           ": " + r.slip[j];
 }
 
-void copy_out(const Str &s, char *text, size_t size) {
-    if (!text || size == 0) return;
-    const size_t n = s.size() < size - 1 ? s.size() : size - 1;
-    std::memcpy(text, s.c_str(), n);
-    text[n] = '\0';
+Str indeterminate_reason(const Row &r) {
+    const Str c = status_clause(r, "indeterminate");
+    return "indeterminate: many splits are equilibria, so there is no single answer" +
+           (c.empty() ? Str() : Str(" (") + c + ")");
 }
-
-}  // namespace
 
 int explain(const Row &r, const double *args, char *text, size_t size) {
     double out[CTO_MAX_OUTPUTS];
@@ -170,12 +133,7 @@ int explain(const Row &r, const double *args, char *text, size_t size) {
         case CTO_OK: s = ok_reason(r, args); break;
         case CTO_E_INVALID: s = invalid_reason(r, args, bad); break;
         case CTO_E_NO_DEAL: s = no_deal_reason(r, args, out); break;
-        case CTO_E_INDETERMINATE: {
-            const Str c = status_clause(r, "indeterminate");
-            s = "indeterminate: many splits are equilibria, so there is no single answer" +
-                (c.empty() ? Str() : Str(" (") + c + ")");
-            break;
-        }
+        case CTO_E_INDETERMINATE: s = indeterminate_reason(r); break;
         case CTO_E_NO_CONVERGENCE:
             s = "the numerical method did not converge for these inputs: no result";
             break;
