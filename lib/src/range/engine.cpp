@@ -16,7 +16,6 @@ namespace cto::core::range {
 namespace {
 
 constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
-constexpr int kMaxThreads = 64;
 
 using Reps = std::vector<ReplicateData>;
 
@@ -53,12 +52,12 @@ int check_options(const RangeOptions &opt) {
     for (int k = 0; k < opt.n_probs; ++k)
         if (!(opt.probs[k] > 0.0 && opt.probs[k] < 1.0)) return kBadProbs;
     if (!(opt.replicates >= 2 && opt.replicates <= kMaxReplicates)) return kBadReplicates;
-    if (!(opt.digits >= 1 && opt.digits <= 15)) return kBadDigits;
+    if (!(opt.digits >= 1 && opt.digits <= kMaxDigits)) return kBadDigits;
     if (!(opt.log2_start >= 1 && opt.log2_start <= kMaxLog2)) return kBadLog2Start;
     if (!(opt.log2_max >= opt.log2_start && opt.log2_max <= kMaxLog2)) return kBadLog2Max;
     if ((static_cast<uint64_t>(opt.replicates) << opt.log2_max) > (uint64_t{1} << kMaxLog2Total))
         return kBadLog2Max;
-    if (!(opt.threads >= 0 && opt.threads <= kMaxThreads)) return kBadThreads;
+    if (!(opt.threads >= 0 && opt.threads <= kMaxWorkerThreads)) return kBadThreads;
     return -1;
 }
 
