@@ -378,13 +378,13 @@ bool swing_method(Method &m) {
 
 // DEALOFFERPATH: the rows of offer_path (src/offers.hxx).
 bool offer_path_method(Method &m) {
-    const cto_function_info *f = catalogue_function("offer_path");
+    const cto_function_info *f = catalogue_function(cto_addin::kOfferPathFunction);
     if (!f) {
-        std::cerr << "addin_gen: no catalogue function offer_path\n";
+        std::cerr << "addin_gen: no catalogue function " << cto_addin::kOfferPathFunction << "\n";
         return false;
     }
     m.method = "getOfferPath";
-    m.calc = "DEALOFFERPATH";
+    m.calc = cto_addin::kOfferPathCalc;
     m.desc = "Repeated offers to a side of unknown value: an array, a row per round with the "
              "columns round, offer, cutoff, probability of agreement in that round, probability "
              "of agreement by that round (at most " +

@@ -298,8 +298,10 @@ class DealFunctions
     // The catalogue function called `name` (its Calc name, its outcome form's, or its
     // catalogue name; any case), or nullptr.
     const cto_function_info *find(const OUString &name) const {
-        const OUString n = name.trim();
+        OUString n = name.trim();
         if (n.isEmpty()) return nullptr;
+        if (n.equalsIgnoreAsciiCaseAscii(cto_addin::kOfferPathCalc))  // not a catalogue row
+            n = OUString::createFromAscii(cto_addin::kOfferPathFunction);
         for (const cto_function_info *f : table_) {
             if (!f) continue;
             if ((*f->calc_name && n.equalsIgnoreAsciiCaseAscii(f->calc_name)) ||
@@ -325,7 +327,10 @@ class DealFunctions
             if (!f)
                 return css::uno::Any("unknown function \"" + name.trim() +
                                      "\": give the name of a DEAL function, e.g. \"DEALSOLVE\"");
-            const OUString calc = OUString::createFromAscii(f->calc_name);
+            const OUString calc = OUString::createFromAscii(
+                *f->calc_name ? f->calc_name
+                : std::strcmp(f->name, cto_addin::kOfferPathFunction) == 0 ? cto_addin::kOfferPathCalc
+                                                                           : f->name);
             if (args.getLength() > f->n_args)
                 return css::uno::Any(calc + " takes at most " + OUString::number(f->n_args) +
                                      " arguments; " + OUString::number(args.getLength()) +

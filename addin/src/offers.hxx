@@ -32,9 +32,9 @@ std::int64_t whole(double x, double limit) {
 }
 
 css::uno::Any offer_path_rows(const std::vector<const cto_function_info *> &t, const Arg *args) {
-    const char *calc = "DEALOFFERPATH";
+    const char *calc = cto_addin::kOfferPathCalc;
     constexpr int kArgs = 7;
-    const cto_function_info *f = catalogue_function(t, "offer_path");
+    const cto_function_info *f = catalogue_function(t, cto_addin::kOfferPathFunction);
     if (!f || f->n_args != kArgs || f->n_outputs < 1 || f->n_outputs > 32)
         throw css::uno::RuntimeException("counteroffer: the add-in was built for another catalogue");
     double in[kArgs];

@@ -51,6 +51,10 @@ constexpr int kDefaultDigits = 3;
 // in that round, probability by that round.
 constexpr int64_t kOfferPathMaxRows = 1000;
 constexpr int kOfferPathColumns = 5;
+// DEALOFFERPATH serves the catalogue function offer_path: its arguments, in its order
+// (DEALREASON("DEALOFFERPATH"; ...) gives offer_path's reason for them).
+constexpr const char *kOfferPathCalc = "DEALOFFERPATH";
+constexpr const char *kOfferPathFunction = "offer_path";
 
 }  // namespace cto_addin
 

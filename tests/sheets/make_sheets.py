@@ -152,6 +152,13 @@ VALUES = [
     ("reason: an unknown name", '=DEALREASON("DEALNONE";1)',
      Text('unknown function "DEALNONE": give the name of a DEAL function, e.g. "DEALSOLVE"'),
      "the reason function never fails on the user's input"),
+    ("reason: DEALOFFERPATH, a factor outside 0 to 1",
+     '=DEALREASON("DEALOFFERPATH";0;1000000;1.9;0.9;2)',
+     Text("DEALOFFERPATH: offerer_factor = 1.9 is outside 0 to 1"),
+     "the library's reason for offer_path's arguments, which DEALOFFERPATH takes; "
+     "docs/reference/functions.md: a factor is in [0, 1]"),
+    ("reason: DEALOFFERPATH ok", '=DEALREASON("DEALOFFERPATH";0;1000000;0.9;0.9;2)',
+     Text("DEALOFFERPATH: ok"), "the library's reason for a valid call"),
     ("deadline T=2", "=DEALDEADLINE(0.9;0.9;2)", 0.1, R11 % 24),
     ("deadline T=3", "=DEALDEADLINE(0.9;0.9;3)", 0.91, R11 % 25),
     ("deadline T=10", "=DEALDEADLINE(0.9;0.9;10)", 0.342800821, R11 % 27),
