@@ -61,6 +61,37 @@ void clear_text(char *text, size_t size) {
     if (text && size > 0) text[0] = '\0';
 }
 
+// The frame of cto_range_explain and cto_swing_explain: an outcome struct that is too
+// small is itself the reason; without an outcome (NULL) the function runs here; `word`
+// writes the words for the core's copy of the outcome.  Nothing inside throws; a defect
+// would be reported as CTO_E_INTERNAL, never propagated.
+template <class CoreOut, class PublicOut, class Run, class Word>
+int explain_frame(const PublicOut *out, const char *type, char *text, size_t size, Run run,
+                  Word word) {
+    clear_text(text, size);
+    try {
+        if (out && out->size < sizeof(PublicOut)) {
+            cto::table::size_reason("out", type, false, out->size, sizeof(PublicOut), text,
+                                    size);
+            return CTO_E_INVALID;
+        }
+        PublicOut own;
+        if (!out) {
+            std::memset(&own, 0, sizeof own);
+            own.size = sizeof own;
+            run(&own);
+            out = &own;
+        }
+        CoreOut r;
+        std::memcpy(&r, out, sizeof r);
+        word(r);
+        return r.status;
+    } catch (...) {
+        clear_text(text, size);
+        return CTO_E_INTERNAL;
+    }
+}
+
 }  // namespace
 
 extern "C" {
@@ -119,63 +150,31 @@ CTO_API int cto_share_swing(const cto_range_input *in, cto_swing_outcome *out) {
 
 CTO_API int cto_range_explain(const cto_range_input *in, const cto_range_options *opt,
                               const cto_range_outcome *out, char *text, size_t size) {
-    clear_text(text, size);
-    try {
-        if (out && out->size < sizeof(cto_range_outcome)) {
-            cto::table::size_reason("out", "cto_range_outcome", false, out->size,
-                                    sizeof(cto_range_outcome), text, size);
-            return CTO_E_INVALID;
-        }
-        cto_range_outcome run;
-        if (!out) {
-            std::memset(&run, 0, sizeof run);
-            run.size = sizeof run;
-            cto_share_range(in, opt, &run);
-            out = &run;
-        }
-        range::RangeIn ci;
-        range::RangeOptions co;
-        range::RangeOut r;
-        std::memcpy(&r, out, sizeof r);
-        if (!load(in, &ci) || !load(opt, &co))
-            struct_reason(in, opt, true, text, size);
-        else
-            cto::table::range_reason(ci, co, r, text, size);
-        return r.status;
-    } catch (...) {  // nothing here throws; a defect is reported, never propagated
-        clear_text(text, size);
-        return CTO_E_INTERNAL;
-    }
+    return explain_frame<range::RangeOut>(
+        out, "cto_range_outcome", text, size,
+        [&](cto_range_outcome *run) { cto_share_range(in, opt, run); },
+        [&](const range::RangeOut &r) {
+            range::RangeIn ci;
+            range::RangeOptions co;
+            if (!load(in, &ci) || !load(opt, &co))
+                struct_reason(in, opt, true, text, size);
+            else
+                cto::table::range_reason(ci, co, r, text, size);
+        });
 }
 
 CTO_API int cto_swing_explain(const cto_range_input *in, const cto_swing_outcome *out,
                               char *text, size_t size) {
-    clear_text(text, size);
-    try {
-        if (out && out->size < sizeof(cto_swing_outcome)) {
-            cto::table::size_reason("out", "cto_swing_outcome", false, out->size,
-                                    sizeof(cto_swing_outcome), text, size);
-            return CTO_E_INVALID;
-        }
-        cto_swing_outcome run;
-        if (!out) {
-            std::memset(&run, 0, sizeof run);
-            run.size = sizeof run;
-            cto_share_swing(in, &run);
-            out = &run;
-        }
-        range::RangeIn ci;
-        range::SwingOut r;
-        std::memcpy(&r, out, sizeof r);
-        if (!load(in, &ci))
-            struct_reason(in, nullptr, false, text, size);
-        else
-            cto::table::swing_reason(ci, r, text, size);
-        return r.status;
-    } catch (...) {
-        clear_text(text, size);
-        return CTO_E_INTERNAL;
-    }
+    return explain_frame<range::SwingOut>(
+        out, "cto_swing_outcome", text, size,
+        [&](cto_swing_outcome *run) { cto_share_swing(in, run); },
+        [&](const range::SwingOut &r) {
+            range::RangeIn ci;
+            if (!load(in, &ci))
+                struct_reason(in, nullptr, false, text, size);
+            else
+                cto::table::swing_reason(ci, r, text, size);
+        });
 }
 
 }  // extern "C"
