@@ -17,20 +17,9 @@
 #include "models/combined.hpp"
 #include "models/deadline.hpp"
 
-namespace {
+#include "test_csv.hpp"
 
-std::vector<std::string> split(const std::string &line) {
-    std::vector<std::string> f;
-    std::string cur;
-    bool quoted = false;
-    for (char c : line) {
-        if (c == '"') quoted = !quoted;
-        else if (c == ',' && !quoted) f.push_back(cur), cur.clear();
-        else cur += c;
-    }
-    f.push_back(cur);
-    return f;
-}
+namespace {
 
 double num(const std::string &s) { return std::strtod(s.c_str(), nullptr); }
 
@@ -50,7 +39,7 @@ Result check_tiny(const std::string &table, int n_args, int surplus_col, int n_o
     std::getline(in, line);
     Result r;
     while (std::getline(in, line)) {
-        const auto f = split(line);
+        const auto f = cto_test::split_csv(line);
         if (f[static_cast<size_t>(n_args)] != "ok") continue;
         std::vector<double> a(static_cast<size_t>(n_args));
         for (int j = 0; j < n_args; ++j) a[static_cast<size_t>(j)] = num(f[static_cast<size_t>(j)]);

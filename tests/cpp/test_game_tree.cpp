@@ -26,20 +26,9 @@
 
 #include "models/combined.hpp"
 
-namespace {
+#include "test_csv.hpp"
 
-std::vector<std::string> fields(const std::string &line) {
-    std::vector<std::string> f;
-    std::string cur;
-    bool quoted = false;
-    for (char c : line) {
-        if (c == '"') quoted = !quoted;
-        else if (c == ',' && !quoted) f.push_back(cur), cur.clear();
-        else cur += c;
-    }
-    f.push_back(cur);
-    return f;
-}
+namespace {
 
 double num(const std::string &s) { return std::strtod(s.c_str(), nullptr); }
 long double lnum(const std::string &s) { return std::strtold(s.c_str(), nullptr); }
@@ -63,13 +52,13 @@ TEST_CASE("solve agrees with backward induction over the game tree", "[game_tree
     REQUIRE(in.good());
     std::string line;
     std::getline(in, line);
-    REQUIRE(fields(line).size() == 24);
+    REQUIRE(cto_test::split_csv(line).size() == 24);
     Tally t;
     const char *names[6] = {"own_share", "other_share", "own_delay_loss", "other_delay_loss",
                             "opening_advantage", "(unused)"};
     while (std::getline(in, line)) {
         if (line.empty()) continue;
-        const auto f = fields(line);
+        const auto f = cto_test::split_csv(line);
         REQUIRE(f.size() == 24);
         cto::core::SolveIn si{num(f[0]), num(f[1]), num(f[2]), num(f[3]), num(f[4]), num(f[5]),
                               num(f[6]), num(f[7]), num(f[8]), num(f[9]), f[10] == "1"};

@@ -9,12 +9,12 @@
 
 #include <cmath>
 #include <fstream>
-#include <sstream>
 #include <string>
 #include <vector>
 
 #include "range/beta.hpp"
 #include "range/distributions.hpp"
+#include "test_csv.hpp"
 
 using namespace cto::core::range;
 
@@ -39,10 +39,7 @@ std::vector<Row> read_table() {
     std::string line;
     std::getline(in, line);
     while (std::getline(in, line)) {
-        std::stringstream ss(line);
-        std::vector<std::string> f;
-        std::string x;
-        while (std::getline(ss, x, ',')) f.push_back(x);
+        const std::vector<std::string> f = cto_test::split_csv(line);
         if (f.size() != 7) continue;
         rows.push_back({f[0],
                         {kind_of(f[1]), std::stod(f[2]), std::stod(f[3]), std::stod(f[4])},

@@ -8,11 +8,11 @@
 #include <catch2/catch.hpp>
 
 #include <fstream>
-#include <sstream>
 #include <string>
 #include <vector>
 
 #include "range/replicate.hpp"
+#include "test_csv.hpp"
 #include "test_range_support.hpp"
 
 using namespace cto_range_test;
@@ -20,19 +20,8 @@ using namespace cto_range_test;
 namespace {
 
 std::vector<std::vector<std::string>> read_csv(const std::string &name) {
-    std::ifstream in(std::string(CTO_REFERENCE_DIR) + "/range/" + name);
-    std::vector<std::vector<std::string>> rows;
-    std::string line;
-    std::getline(in, line);
-    while (std::getline(in, line)) {
-        std::stringstream ss(line);
-        std::vector<std::string> f;
-        std::string x;
-        while (std::getline(ss, x, ',')) f.push_back(x);
-        if (line.back() == ',') f.push_back("");
-        rows.push_back(f);
-    }
-    return rows;
+    std::vector<std::string> head;
+    return cto_test::read_csv(std::string(CTO_REFERENCE_DIR) + "/range/" + name, &head);
 }
 
 Model d2() { return Model{model_d2, nullptr}; }

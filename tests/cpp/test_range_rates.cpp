@@ -9,11 +9,11 @@
 
 #include <cmath>
 #include <fstream>
-#include <sstream>
 #include <string>
 #include <vector>
 
 #include "range/rates_model.hpp"
+#include "test_csv.hpp"
 #include "test_range_support.hpp"
 
 using namespace cto_range_test;
@@ -60,10 +60,7 @@ std::vector<std::vector<std::string>> reference_rows(const char *model, int log2
     std::string line;
     std::getline(f, line);
     while (std::getline(f, line)) {
-        std::stringstream ss(line);
-        std::vector<std::string> c;
-        std::string x;
-        while (std::getline(ss, x, ',')) c.push_back(x);
+        const std::vector<std::string> c = cto_test::split_csv(line);
         if (c[0] == model && std::stoi(c[3]) == log2n && c[4] == "own_quantile") rows.push_back(c);
     }
     return rows;

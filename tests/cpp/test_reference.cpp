@@ -34,6 +34,7 @@
 
 #include "counteroffer/counteroffer.h"
 #include "reference_tables.inc"
+#include "test_csv.hpp"
 
 #ifndef CTO_REFERENCE_DIR
 #error "CTO_REFERENCE_DIR must name the directory of the reference tables"
@@ -50,38 +51,6 @@ struct Table {
     bool found = false;
 };
 
-// One CSV record; fields may be double-quoted (with "" for a quote), as Python's csv
-// module writes them.
-std::vector<std::string> split_csv(const std::string &line) {
-    std::vector<std::string> f;
-    std::string cur;
-    bool quoted = false;
-    for (size_t i = 0; i < line.size(); ++i) {
-        const char c = line[i];
-        if (quoted) {
-            if (c == '"') {
-                if (i + 1 < line.size() && line[i + 1] == '"') {
-                    cur += '"';
-                    ++i;
-                } else {
-                    quoted = false;
-                }
-            } else {
-                cur += c;
-            }
-        } else if (c == '"') {
-            quoted = true;
-        } else if (c == ',') {
-            f.push_back(cur);
-            cur.clear();
-        } else if (c != '\r') {
-            cur += c;
-        }
-    }
-    f.push_back(cur);
-    return f;
-}
-
 Table read_table(const std::string &name) {
     Table t;
     t.name = name;
@@ -89,10 +58,10 @@ Table read_table(const std::string &name) {
     if (!in) return t;
     t.found = true;
     std::string line;
-    if (std::getline(in, line)) t.header = split_csv(line);
+    if (std::getline(in, line)) t.header = cto_test::split_csv(line);
     while (std::getline(in, line)) {
         if (line.empty()) continue;
-        t.rows.push_back(split_csv(line));
+        t.rows.push_back(cto_test::split_csv(line));
     }
     return t;
 }
