@@ -50,17 +50,23 @@ inline void to_values(int status, const cto_solve_outcome &c, double *o) {
     o[7] = status == CTO_OK || status == CTO_E_NO_DEAL ? (c.delayed ? 1.0 : 0.0) : core::kNaN;
 }
 
+// The table's outputs of a solve outcome: through the public struct (the one translation
+// of the outcome, publish) into the catalogue order (to_values).  Returns st.
+inline int solve_values(int st, const core::SolveOut &so, double *o) {
+    cto_solve_outcome c;
+    c.size = sizeof c;
+    publish(so, &c);
+    to_values(st, c, o);
+    return st;
+}
+
 inline int solve_thunk(const double *a, double *o, int *bad) {
     bool opens;
     if (!table::to_bool(a[10], opens)) return table::reject(10, o, 8, bad);
     const core::SolveIn in{a[0], a[1], a[2], a[3], a[4], a[5], a[6], a[7], a[8], a[9], opens};
     core::SolveOut so;
     const int st = core::solve(in, &so, bad);
-    cto_solve_outcome c;
-    c.size = sizeof c;
-    publish(so, &c);
-    to_values(st, c, o);
-    return st;
+    return solve_values(st, so, o);
 }
 
 // solve_from_rates through the table: the 14 arguments in catalogue order, solve's outputs.
@@ -72,11 +78,7 @@ inline int solve_from_rates_thunk(const double *a, double *o, int *bad) {
                                 a[7], a[8], a[9], a[10], opens, a[12], continuous};
     core::SolveOut so;
     const int st = core::solve_rates(in, &so, bad);
-    cto_solve_outcome c;
-    c.size = sizeof c;
-    publish(so, &c);
-    to_values(st, c, o);
-    return st;
+    return solve_values(st, so, o);
 }
 
 }  // namespace cto::entry
