@@ -7,6 +7,7 @@
 // (0, m, 1)-net in each coordinate (Owen 1995, s.3).
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cstdint>
 #include <cstring>
 #include <vector>
@@ -123,26 +124,32 @@ TEST_CASE("Owen scrambling keeps the net: one point per interval, u in (0, 1)", 
     CHECK(unit_from_bits(0xFFFFFFFFu) == 1.0 - 0x1p-33);
 }
 
-TEST_CASE("Owen scrambling: the prefix cache gives the same bits", "[range]") {
-    // owen_scramble_cached is a cache of owen_scramble's flips (scramble.hpp): equal for
-    // every x, on each path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them)
-    // and the scalar one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes,
-    // for several cache depths.  The paths the CPU has are named in the test output.
+TEST_CASE("Owen scrambling: the prefix cache and the vector paths give the same bits", "[range]") {
+    // owen_scramble_block is a cache of owen_scramble's flips (scramble.hpp) with the
+    // remaining digits hashed eight or four points at a time: equal for every x, on each
+    // path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them) and the scalar
+    // one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes, for several cache
+    // depths, in blocks of 37 (so that every path also leaves points to the next one).  The
+    // paths the CPU has are named in the test output.
     std::vector<uint32_t> mask(size_t{1} << kMaxPrefixBits);
+    std::vector<uint32_t> x(65536), want(x.size()), got(x.size());
+    uint64_t state = 1;
+    for (size_t t = 0; t < x.size(); ++t) {
+        state += kGolden;
+        x[t] = t == 0 ? 0u : t == 1 ? 0xFFFFFFFFu : static_cast<uint32_t>(mix64(state) >> 32);
+    }
     for (int L : {0, 1, 2, 7, 12, 16}) {
         const uint64_t key = scramble_key(20240601u, 3, static_cast<uint64_t>(L));
         owen_prefix_masks(key, L, mask.data());
-        uint64_t state = 1;
-        for (int t = 0; t < 65536; ++t) {
-            state += kGolden;
-            const uint32_t x = t == 0 ? 0u : t == 1 ? 0xFFFFFFFFu : static_cast<uint32_t>(mix64(state) >> 32);
-            const uint32_t want = owen_scramble(x, key);
-            REQUIRE(owen_scramble_cached(x, key, L, mask.data()) == want);  // widest path
-            REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kAvx2) == want);
-            REQUIRE(owen_scramble_cached(x, key, L, mask.data(), Simd::kScalar) == want);
+        for (size_t t = 0; t < x.size(); ++t) want[t] = owen_scramble(x[t], key);
+        for (Simd path : {Simd::kAuto, Simd::kAvx2, Simd::kScalar}) {
+            for (size_t b = 0; b < x.size(); b += 37)
+                owen_scramble_block(x.data() + b, std::min<size_t>(37, x.size() - b), key, L,
+                                    mask.data(), got.data() + b, path);
+            for (size_t t = 0; t < x.size(); ++t) REQUIRE(got[t] == want[t]);
         }
     }
-    uint32_t probe = 0;
-    WARN("vector paths on this CPU: AVX-512 " << scramble_tail_avx512(1, 2, 3, &probe)
-                                              << ", AVX2 " << scramble_tail_avx2(1, 2, 3, &probe));
+    uint32_t probe[8] = {};
+    WARN("vector paths on this CPU: AVX-512 " << (scramble_tails_avx512(probe, 8, 2, 3, probe) == 8)
+                                              << ", AVX2 " << (scramble_tails_avx2(probe, 4, 2, 3, probe) == 4));
 }

@@ -235,8 +235,9 @@ TEST_CASE("Range estimators: type-7 quantiles, pooled selection, t quantiles", "
 TEST_CASE("Ranges: the sort puts doubles in IEEE 754 totalOrder at every length", "[range]") {
     // IEEE 754-2008 s.5.10 totalOrder: -inf < negatives < -0 < +0 < positives < +inf,
     // compared here with std::sort on a comparator written from that definition, for lengths
-    // on both sides of the switch from comparison to radix sorting, and for values that share
-    // their leading bits (the digits the radix sort skips) and values that do not.
+    // on both sides of the switch from comparison to bucket sorting, and for values that
+    // share their leading bits, values that do not, a crowd of equal values beside a spread
+    // (a bucket too full for insertion) and values all equal.
     auto total_less = [](double a, double b) {
         if (a < b) return true;
         if (b < a) return false;
@@ -250,15 +251,18 @@ TEST_CASE("Ranges: the sort puts doubles in IEEE 754 totalOrder at every length"
         z = (z ^ (z >> 27)) * 0x94D049BB133111EBull;
         return z ^ (z >> 31);
     };
-    for (size_t n : {size_t{1}, size_t{2}, size_t{255}, size_t{256}, size_t{257}, size_t{4096}}) {
-        for (int kind = 0; kind < 3; ++kind) {
+    for (size_t n : {size_t{1}, size_t{2}, size_t{255}, size_t{256}, size_t{257}, size_t{4096},
+                     size_t{1} << 18}) {
+        for (int kind = 0; kind < 5; ++kind) {
             std::vector<double> y(n);
             for (size_t i = 0; i < n; ++i) {
                 const double u = static_cast<double>(next() >> 11) * 0x1p-53;
                 if (kind == 0) y[i] = 41.0 + u;                    // one deal: shared leading bits
                 else if (kind == 1) y[i] = (u - 0.5) * 1e6;        // both signs, wide range
-                else y[i] = (i % 7 == 0) ? -0.0 : (i % 11 == 0) ? 0.0 : (i % 13 == 0) ? -INFINITY
+                else if (kind == 2) y[i] = (i % 7 == 0) ? -0.0 : (i % 11 == 0) ? 0.0 : (i % 13 == 0) ? -INFINITY
                          : (i % 17 == 0) ? INFINITY : std::ldexp(u, static_cast<int>(next() % 200) - 100);
+                else if (kind == 3) y[i] = (i % 2 == 0) ? 12.5 : 10.0 + 5.0 * u;  // no deal in half
+                else y[i] = 0.25;
             }
             std::vector<double> want = y;
             std::sort(want.begin(), want.end(), total_less);

@@ -126,7 +126,7 @@ def test_result_frame_and_repr():
     assert df.loc[0.5, "own"] == r.quantile(0.5).value
     text = repr(r)
     assert "status='ok'" in text and "0.25" in text and "P(deal rational)" in text
-    assert r.spec_version == 2 and r.replicates == 16 and r.points_per_replicate >= 1024
+    assert r.spec_version == 3 and r.replicates == 16 and r.points_per_replicate >= 1024
     assert dict(r.inputs)["other_rate"] == co.uniform(0.04, 0.16)
     with pytest.raises(KeyError):
         r.quantile(0.1)

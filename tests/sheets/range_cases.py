@@ -109,7 +109,7 @@ def range_values(share_rates, text):
          "docs/models/ranges.md options: replicates = 16 by default", 0.0),
         ("outcome: one uncertain input", "=INDEX(%s;15;2)" % outcome, 1.0,
          "one input given as a range", 0.0),
-        ("outcome: spec version", "=INDEX(%s;17;2)" % outcome, 2.0,
+        ("outcome: spec version", "=INDEX(%s;17;2)" % outcome, 3.0,
          "docs/models/ranges.md, Reproducibility: the spec version of the rules", 0.0),
         ("swing: the larger swing first", "=INDEX(%s;1;1)" % swing, text(order[0]),
          rub + "each input's ends, the other at its mode; sorted by swing (Clemen & Reilly "

@@ -20,6 +20,9 @@
 #ifndef CTO_RANGE_DISTRIBUTIONS_HPP
 #define CTO_RANGE_DISTRIBUTIONS_HPP
 
+#include <cstddef>
+#include <cstdint>
+
 #include "pert_table.hpp"
 
 namespace cto::core::range {
@@ -62,6 +65,15 @@ struct DistPlan {
 };
 DistPlan dist_plan(const Dist &d);  // d must be valid
 double dist_quantile(const DistPlan &p, double u);
+
+// x[i] = dist_quantile(p, unit_from_bits(y[i])) for i < n (scramble.hpp's u = (y + 1/2)
+// 2^-32): the same bits, one loop per kind so that the draws of a block overlap.
+void dist_quantile_block(const DistPlan &p, const uint32_t *y, size_t n, double *x);
+
+// The triangular and PERT draws of dist_quantile_block eight at a time with AVX-512
+// (dist_simd.cpp), the same bits: returns how many it wrote (a multiple of 8); 0 for other
+// kinds, a PERT plan without a table, or a CPU without AVX-512.
+size_t dist_block_avx512(const DistPlan &p, const uint32_t *y, size_t n, double *x);
 
 }  // namespace cto::core::range
 

@@ -3,6 +3,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <cstring>
 
 #include "beta.hpp"
 
@@ -22,16 +24,52 @@ double knot(double v, double guess, double a, double b, double beta) {
     return inc_beta_inv(v, a, b, beta);
 }
 
+// The tables of pert_half_root.
+void root_build(double a, PertHalf *t) {
+    const long double ia = 1.0L / static_cast<long double>(a);
+    t->octave[0] = 1.0;
+    for (int q = 1; q <= PertHalf::kOctaves; ++q)
+        t->octave[q] = static_cast<double>(std::exp2(-static_cast<long double>(q) * ia));
+    for (int j = 0; j < PertHalf::kSegments; ++j) {
+        const double c = 1.0 + (j + 0.5) / PertHalf::kSegments;  // exact
+        t->seg_root[j] = static_cast<double>(std::pow(static_cast<long double>(c), ia));
+        t->seg_inv[j] = 1.0 / c;
+    }
+    long double coef = 1.0L;  // C(1/a, k) = C(1/a, k - 1) (1/a - k + 1)/k
+    t->binom[0] = 1.0;
+    for (int k = 1; k <= PertHalf::kTerms; ++k) {
+        coef *= (ia - (k - 1)) / k;
+        t->binom[k] = static_cast<double>(coef);
+    }
+}
+
 }  // namespace
+
+double pert_half_root(const PertHalf &t, double v) {
+    uint64_t bits;
+    std::memcpy(&bits, &v, sizeof bits);
+    const int q = 1023 - static_cast<int>(bits >> 52);  // v = 2^-q m for normal v > 0
+    if (q < 1 || q > PertHalf::kOctaves)  // not from the generator: a long double power
+        return static_cast<double>(std::pow(static_cast<long double>(v), 1.0L / t.a));
+    const uint64_t mbits = (bits & ((uint64_t{1} << 52) - 1)) | (uint64_t{1023} << 52);
+    double m;
+    std::memcpy(&m, &mbits, sizeof m);
+    const int j = static_cast<int>((bits >> 46) & 63);  // the segment: m's first six bits
+    const double tt = (m - (1.0 + (j + 0.5) / PertHalf::kSegments)) * t.seg_inv[j];
+    double p = t.binom[PertHalf::kTerms];
+    for (int k = PertHalf::kTerms - 1; k >= 1; --k) p = p * tt + t.binom[k];
+    const double c = t.seg_root[j];
+    return t.octave[q] * (c + c * (p * tt));
+}
 
 void pert_half_build(double a, double b, double beta, PertHalf *t) {
     t->a = a;
     t->b = b;
     t->beta = beta;
-    t->inv_a = 1.0 / a;
     const double s_max = std::pow(0.5, 1.0 / a);
     t->h = s_max / kPertKnots;
     t->inv_h = kPertKnots / s_max;
+    root_build(a, t);
     const double d0 = std::pow(a * beta, 1.0 / a);  // the limits at s = 0
     t->knot[0] = {0.0, d0, 2.0 * (b - 1.0) * d0 * d0 / (a + 1.0)};
     for (int k = 1; k <= kPertKnots; ++k) {
@@ -49,7 +87,7 @@ void pert_half_build(double a, double b, double beta, PertHalf *t) {
 }
 
 double pert_half_inverse(const PertHalf &t, double v) {
-    const double s = std::exp(std::log(v) * t.inv_a);
+    const double s = pert_half_root(t, v);
     const double pos = s * t.inv_h;  // in [0, K] up to rounding
     const int k = std::min(static_cast<int>(pos), kPertKnots - 1);
     const double w = pos - k, h = t.h;  // w in [0, 1], or a rounding above 1 at v = 1/2

@@ -15,8 +15,18 @@
 // 26.5.4).  Between knots x is the quintic Hermite interpolant of the values and the two
 // derivatives at both ends (Burden & Faires, Numerical Analysis, s.3.4, Hermite
 // interpolation); its error is O(h^6 max |x^(6)|), with h the knot spacing.  With
-// kPertKnots = 256 the interpolant agrees with the iterative inverse to a few ulp of the
+// kPertKnots = 512 the interpolant agrees with the iterative inverse to a few ulp of the
 // range (tests/cpp/test_range_distributions.cpp; docs/models/ranges.md, "Inverse CDFs").
+//
+// s = v^(1/a) without exp or log: with v = 2^-q m (m in [1, 2), q = 1..33, which covers
+// every v = (Y + 1/2) 2^-32 <= 1/2 the generator makes) and m in the segment j of [1, 2)
+// (64 segments, centre c_j = 1 + (j + 1/2)/64),
+//   s = 2^(-q/a) c_j^(1/a) (1 + t)^(1/a),   t = (m - c_j)/c_j,  |t| <= 1/129,
+// with (1 + t)^(1/a) = 1 + sum_{k=1..7} C(1/a, k) t^k (the binomial series, Abramowitz &
+// Stegun 1964, 3.6.8), whose first omitted term is below 2^-60.  m - c_j is exact (both in
+// [1, 2)); 2^(-q/a) and c_j^(1/a) are tabulated once per table from long double powers, so
+// s is within four ulp (four roundings); other v (below 2^-33, in direct calls) use a long
+// double power.
 #ifndef CTO_RANGE_PERT_TABLE_HPP
 #define CTO_RANGE_PERT_TABLE_HPP
 
@@ -26,17 +36,24 @@ inline constexpr int kPertKnots = 512;
 
 struct PertHalf {
     double a, b, beta;       // shapes of this half and B(a, b)
-    double inv_a;            // 1/a
     double h, inv_h;         // knot spacing in s and its reciprocal
     struct Knot {
         double x, dx, d2x;  // x(s_k) and its first two derivatives in s
     };
     Knot knot[kPertKnots + 1];  // one interval's data in two adjacent entries
+    static constexpr int kOctaves = 33, kSegments = 64, kTerms = 7;
+    double octave[kOctaves + 1];  // octave[q] = 2^(-q/a), q = 1..kOctaves
+    double seg_root[kSegments];   // c_j^(1/a)
+    double seg_inv[kSegments];    // 1/c_j
+    double binom[kTerms + 1];     // binom[k] = C(1/a, k), k = 1..kTerms
 };
 
 // Builds the table of one half (a, b > 1; beta = B(a, b)): each knot from the previous
 // one by Halley steps (about two incomplete betas a knot).
 void pert_half_build(double a, double b, double beta, PertHalf *t);
+
+// s = v^(1/a) for v in (0, 1/2] (see above).
+double pert_half_root(const PertHalf &t, double v);
 
 // x with I_x(a, b) = v for v in (0, 1/2].
 double pert_half_inverse(const PertHalf &t, double v);

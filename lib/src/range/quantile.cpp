@@ -49,10 +49,13 @@ double order_stat(const double *const *seg, size_t nseg, size_t len, size_t r) {
 
 void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
     // The integer keys are sorted instead of the doubles (same order, IEEE totalOrder).
-    // Short arrays by comparison; longer ones by a least-significant-digit radix sort
-    // (Knuth, TAOCP vol. 3, s.5.2.5) of eight 8-bit digits, skipping each digit that all
-    // keys share (the shares of one deal agree in their leading bits).  A sort's result
-    // does not depend on the method: equal keys are equal doubles.
+    // Short arrays by comparison; longer ones are first distributed into up to 2^16
+    // buckets by the leading bits of (key - least key), a counting sort (Knuth, TAOCP
+    // vol. 3, s.5.2, "distribution counting"), and each bucket is then sorted by
+    // comparison (insertion for a few keys).  The draws of a share fill a continuous
+    // range of keys, so buckets hold a key or two and the work is a few passes over the
+    // data; a crowded bucket (many equal draws) falls back to std::sort, never worse than
+    // n log n.  A sort's result does not depend on the method: equal keys are equal doubles.
     if (n < 256) {
         keys.resize(n);
         for (size_t i = 0; i < n; ++i) keys[i] = order_key(y[i]);
@@ -60,27 +63,41 @@ void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
         for (size_t i = 0; i < n; ++i) y[i] = from_key(keys[i]);
         return;
     }
-    keys.resize(2 * n);
-    uint64_t *a = keys.data(), *b = a + n;
-    size_t count[8][256] = {};
+    const int log2n = 63 - __builtin_clzll(static_cast<unsigned long long>(n));
+    const int want = std::min(log2n - 1, 16);  // about two keys a bucket
+    keys.resize(2 * n + (size_t{1} << want) + 1);
+    uint64_t *a = keys.data(), *b = a + n, *start = b + n;
+    uint64_t least = ~uint64_t{0}, most = 0;
     for (size_t i = 0; i < n; ++i) {
         const uint64_t k = order_key(y[i]);
         a[i] = k;
-        for (int d = 0; d < 8; ++d) ++count[d][(k >> (8 * d)) & 0xFF];
+        least = std::min(least, k);
+        most = std::max(most, k);
     }
-    for (int d = 0; d < 8; ++d) {
-        size_t *c = count[d];
-        if (c[(a[0] >> (8 * d)) & 0xFF] == n) continue;  // one bucket: the digit is shared
-        size_t sum = 0;
-        for (int v = 0; v < 256; ++v) {
-            const size_t t = c[v];
-            c[v] = sum;
-            sum += t;
+    if (least == most) return;  // every value the same bits: sorted already
+    const int span = 64 - __builtin_clzll(static_cast<unsigned long long>(most - least));
+    const int bits = std::min(want, span);
+    const int shift = span - bits;
+    const size_t nb = size_t{1} << bits;
+    std::fill(start, start + nb + 1, uint64_t{0});
+    for (size_t i = 0; i < n; ++i) ++start[((a[i] - least) >> shift) + 1];
+    for (size_t v = 0; v < nb; ++v) start[v + 1] += start[v];
+    for (size_t i = 0; i < n; ++i) b[start[(a[i] - least) >> shift]++] = a[i];
+    // start[v] is now the end of bucket v (the start of bucket v + 1).
+    for (size_t v = 0, lo = 0; v < nb; lo = start[v++]) {
+        const size_t hi = start[v];
+        if (hi - lo > 32) {
+            std::sort(b + lo, b + hi);
+            continue;
         }
-        for (size_t i = 0; i < n; ++i) b[c[(a[i] >> (8 * d)) & 0xFF]++] = a[i];
-        std::swap(a, b);
+        for (size_t i = lo + 1; i < hi; ++i) {
+            const uint64_t k = b[i];
+            size_t j = i;
+            for (; j > lo && b[j - 1] > k; --j) b[j] = b[j - 1];
+            b[j] = k;
+        }
     }
-    for (size_t i = 0; i < n; ++i) y[i] = from_key(a[i]);
+    for (size_t i = 0; i < n; ++i) y[i] = from_key(b[i]);
 }
 
 void sort_total(double *y, size_t n) {
@@ -108,12 +125,6 @@ double quantile7_pooled(const double *const *seg, size_t k, size_t len, double p
     const double hi = order_stat(seg, k, len, j + 1);
     if (lo == hi) return lo;
     return lo + (h - jf) * (hi - lo);
-}
-
-void Sum::add(double x) {
-    const double t = s + x;
-    if (std::fabs(s) >= std::fabs(x)) c += (s - t) + x; else c += (x - t) + s;
-    s = t;
 }
 
 MeanSe mean_se(const double *x, size_t k) {

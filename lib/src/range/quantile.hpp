@@ -16,6 +16,7 @@
 #ifndef CTO_RANGE_QUANTILE_HPP
 #define CTO_RANGE_QUANTILE_HPP
 
+#include <cmath>
 #include <cstddef>
 #include <cstdint>
 #include <vector>
@@ -38,7 +39,11 @@ double quantile7_pooled(const double *const *seg, size_t k, size_t len, double p
 // Neumaier-compensated running sum.
 struct Sum {
     double s = 0.0, c = 0.0;
-    void add(double x);
+    void add(double x) {
+        const double t = s + x;
+        if (std::fabs(s) >= std::fabs(x)) c += (s - t) + x; else c += (x - t) + s;
+        s = t;
+    }
     double value() const { return s + c; }
 };
 

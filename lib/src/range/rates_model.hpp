@@ -29,8 +29,8 @@
  *          CTO_E_INDETERMINATE -> NaN estimates (a draw without a determinate split);
  *          CTO_E_INTERNAL -> NaN estimates (working memory not available).
  *  Reproducibility: bit-identical for the same inputs, options and seed on one machine
- *  and libm, whatever the thread count; out->spec_version (1) names the rules.
- *  Accuracy: inverse CDFs within 2.2 ulp (of the range's magnitude) of mpmath at 40
+ *  and libm, whatever the thread count; out->spec_version (3) names the rules.
+ *  Accuracy: inverse CDFs within 2.6 ulp (of the range's magnitude) of mpmath at 40
  *  digits; 95% error bars cover in 94-94.5% of 200 runs with two uncertain rates (fewer,
  *  82-84% at the 10th/90th percentile, with a single uncertain input: see the docs).
  *  Estimates under the stated assumptions, not financial, legal or tax advice.  Since 1.x.

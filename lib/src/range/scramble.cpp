@@ -28,19 +28,14 @@ void owen_prefix_masks(uint64_t key, int L, uint32_t *mask) {
             mask[q] = mask[q >> 1] | static_cast<uint32_t>(flip_bit(key, k + 1, q) << (31 - k));
 }
 
-uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask,
-                              Simd simd) {
-    const uint32_t top = mask[L == 0 ? 0 : (x >> (32 - L))];
-    const unsigned first = static_cast<unsigned>(L) + 2;
-    uint32_t tail;
-    const bool vector = (simd == Simd::kAuto && scramble_tail_avx512(x, key, first, &tail)) ||
-                        (simd != Simd::kScalar && scramble_tail_avx2(x, key, first, &tail));
-    if (!vector) tail = tail_flips(x, key, first);
-    return x ^ top ^ tail;
-}
-
-uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask) {
-    return owen_scramble_cached(x, key, L, mask, Simd::kAuto);
+void owen_scramble_block(const uint32_t *x, size_t n, uint64_t key, int L, const uint32_t *mask,
+                         uint32_t *y, Simd simd) {
+    const unsigned first = static_cast<unsigned>(L) + 2;  // the first digit not cached
+    size_t done = 0;
+    if (simd == Simd::kAuto) done = scramble_tails_avx512(x, n, key, first, y);
+    if (simd != Simd::kScalar) done += scramble_tails_avx2(x + done, n - done, key, first, y + done);
+    for (size_t i = done; i < n; ++i) y[i] = tail_flips(x[i], key, first);
+    for (size_t i = 0; i < n; ++i) y[i] ^= x[i] ^ mask[L == 0 ? 0 : (x[i] >> (32 - L))];
 }
 
 uint32_t owen_scramble(uint32_t x, uint64_t key) {

@@ -17,6 +17,7 @@
 #ifndef CTO_RANGE_SCRAMBLE_HPP
 #define CTO_RANGE_SCRAMBLE_HPP
 
+#include <cstddef>
 #include <cstdint>
 
 namespace cto::core::range {
@@ -40,23 +41,29 @@ uint32_t owen_scramble(uint32_t x, uint64_t key);
 
 // A cache of the same flips: the flips of digits 1..L+1 depend only on the first L digits
 // of X, so they can be computed once per (key, value of the first L digits) and reused by
-// every point.  owen_prefix_masks fills mask[t] for t < 2^L (2^(L+1) - 1 hashes);
-// owen_scramble_cached(x, key, L, mask) == owen_scramble(x, key) for every x, with
-// 31 - L hashes instead of 32.  0 <= L <= kMaxPrefixBits.
+// every point.  owen_prefix_masks fills mask[t] for t < 2^L (2^(L+1) - 1 hashes).
+// 0 <= L <= kMaxPrefixBits.
 inline constexpr int kMaxPrefixBits = 16;
 void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
-uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask);
 
-// The flips of digits first..32 (first >= 2) with AVX-512 (AVX512F and AVX512DQ) or AVX2
-// (scramble_simd.cpp): each returns false (and writes nothing) when the CPU lacks it; else
-// the same bits as the scalar loop.
-bool scramble_tail_avx512(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
-bool scramble_tail_avx2(uint64_t x, uint64_t key, unsigned first, uint32_t *flips);
-
-// Which path owen_scramble_cached takes: kAuto the widest the CPU has; the others force a
-// narrower one (falling back to scalar), so that tests compare every path on one machine.
+// Which path owen_scramble_block takes: kAuto the widest the CPU has (AVX-512, AVX2,
+// scalar); the others force a narrower one, so that tests compare every path on one
+// machine.
 enum class Simd { kAuto, kAvx2, kScalar };
-uint32_t owen_scramble_cached(uint32_t x, uint64_t key, int L, const uint32_t *mask, Simd simd);
+
+// y[i] = owen_scramble(x[i], key) for i < n, from the cache of depth L and 31 - L hashes a
+// coordinate (the same bits on every path).
+void owen_scramble_block(const uint32_t *x, size_t n, uint64_t key, int L, const uint32_t *mask,
+                         uint32_t *y, Simd simd = Simd::kAuto);
+
+// The flips of digits first..32 (first >= 2) of x[0..n) into flips[0..n), eight points at
+// a time with AVX-512 (AVX512F and AVX512DQ) or four with AVX2 (scramble_simd.cpp); the
+// points left over (n mod 8 or 4) are not written.  Each returns how many points it
+// wrote: 0 when the CPU lacks the instructions.
+size_t scramble_tails_avx512(const uint32_t *x, size_t n, uint64_t key, unsigned first,
+                             uint32_t *flips);
+size_t scramble_tails_avx2(const uint32_t *x, size_t n, uint64_t key, unsigned first,
+                           uint32_t *flips);
 
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
 inline double unit_from_bits(uint32_t y) {

@@ -1,5 +1,6 @@
-// The hashed Owen scramble's tail flips (scramble.cpp) eight digits at a time with
-// AVX-512 (native 64-bit products: VPMULLQ of AVX512DQ) or four at a time with AVX2.
+// The hashed Owen scramble's tail flips (scramble.cpp) for eight points at a time with
+// AVX-512 (native 64-bit products: VPMULLQ of AVX512DQ) or four at a time with AVX2: each
+// lane is one point's coordinate, and the digits run in a loop, so no lane is idle.
 //
 // Integer arithmetic only, so the result is the same bits as the scalar loop: 64-bit
 // products modulo 2^64 are formed from 32-bit ones,
@@ -23,88 +24,109 @@ __attribute__((target("avx2"))) inline __m256i mul64(__m256i a, __m256i b) {
     return _mm256_add_epi64(lo, _mm256_slli_epi64(cross, 32));
 }
 
-__attribute__((target("avx2"))) inline __m256i mix64x4(__m256i z) {
+// The top bit of mix64(z) is the top bit of the second product (the last step,
+// z ^ (z >> 31), leaves bit 63 alone), so the kernels stop there.
+__attribute__((target("avx2"))) inline __m256i mix64_top_x4(__m256i z) {
     const __m256i c1 = _mm256_set1_epi64x(static_cast<long long>(0xBF58476D1CE4E5B9ull));
     const __m256i c2 = _mm256_set1_epi64x(static_cast<long long>(0x94D049BB133111EBull));
     z = mul64(_mm256_xor_si256(z, _mm256_srli_epi64(z, 30)), c1);
-    z = mul64(_mm256_xor_si256(z, _mm256_srli_epi64(z, 27)), c2);
-    return _mm256_xor_si256(z, _mm256_srli_epi64(z, 31));
+    return mul64(_mm256_xor_si256(z, _mm256_srli_epi64(z, 27)), c2);
 }
 
-// Flips of digits first..32 (first >= 2), four digits per step.
-__attribute__((target("avx2"))) uint32_t tail_flips_avx2(uint64_t x, uint64_t key,
-                                                         unsigned first) {
+// The flips of digits first..32 of the coordinates in the lanes (32-bit values in 64-bit
+// lanes), four points at a time.  The node's product with G needs no multiplication: the
+// leading bit and the prefix are disjoint, so node G = 2^(k-1) G + prefix G, and prefix
+// G follows digit by digit from prefix_{k+1} = 2 prefix_k + digit k:
+// P_{k+1} = 2 P_k + (digit k ? G : 0) (mod 2^64).
+__attribute__((target("avx2"))) __m256i tail_flips_x4(__m256i xv, __m256i kv, unsigned first) {
     const __m256i g = _mm256_set1_epi64x(static_cast<long long>(kGolden));
-    const __m256i kv = _mm256_set1_epi64x(static_cast<long long>(key));
-    const __m256i xv = _mm256_set1_epi64x(static_cast<long long>(x));
     const __m256i one = _mm256_set1_epi64x(1);
-    uint64_t flips = 0;
-    alignas(32) uint64_t bit[4];
-    for (unsigned k = first; k <= 32; k += 4) {
-        // Lanes k, k+1, k+2, k+3 (beyond 32: computed and discarded).
-        const __m256i kk = _mm256_add_epi64(_mm256_set1_epi64x(k), _mm256_set_epi64x(3, 2, 1, 0));
-        const __m256i prefix = _mm256_srlv_epi64(xv, _mm256_sub_epi64(_mm256_set1_epi64x(33), kk));
-        const __m256i lead = _mm256_sllv_epi64(one, _mm256_sub_epi64(kk, one));
-        const __m256i node = _mm256_or_si256(lead, prefix);
-        const __m256i h = mix64x4(_mm256_xor_si256(kv, mul64(node, g)));
-        _mm256_store_si256(reinterpret_cast<__m256i *>(bit), _mm256_srli_epi64(h, 63));
-        for (unsigned l = 0; l < 4 && k + l <= 32; ++l) flips |= bit[l] << (32 - (k + l));
+    __m256i pg = mul64(_mm256_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))), g);
+    __m256i flips = _mm256_setzero_si256();
+    for (unsigned k = first; k <= 32; ++k) {
+        const __m256i lead = _mm256_set1_epi64x(static_cast<long long>(kGolden << (k - 1)));
+        const __m256i h = mix64_top_x4(_mm256_xor_si256(kv, _mm256_add_epi64(lead, pg)));
+        const __m128i at = _mm_cvtsi32_si128(static_cast<int>(32 - k));
+        flips = _mm256_or_si256(flips, _mm256_sll_epi64(_mm256_srli_epi64(h, 63), at));
+        const __m256i digit = _mm256_and_si256(_mm256_srl_epi64(xv, at), one);
+        pg = _mm256_add_epi64(_mm256_slli_epi64(pg, 1),
+                              _mm256_and_si256(_mm256_sub_epi64(_mm256_setzero_si256(), digit), g));
     }
-    return static_cast<uint32_t>(flips);
+    return flips;
 }
 
+__attribute__((target("avx2"))) size_t tails_avx2(const uint32_t *x, size_t n, uint64_t key,
+                                                  unsigned first, uint32_t *flips) {
+    const __m256i kv = _mm256_set1_epi64x(static_cast<long long>(key));
+    size_t i = 0;
+    alignas(32) uint64_t lane[4];
+    for (; i + 4 <= n; i += 4) {
+        const __m256i xv = _mm256_cvtepu32_epi64(_mm_loadu_si128(reinterpret_cast<const __m128i *>(x + i)));
+        _mm256_store_si256(reinterpret_cast<__m256i *>(lane), tail_flips_x4(xv, kv, first));
+        for (size_t l = 0; l < 4; ++l) flips[i + l] = static_cast<uint32_t>(lane[l]);
+    }
+    return i;
+}
 
 // GCC 12's AVX-512 intrinsics pass an undefined vector as the unused merge source, which
 // -Wmaybe-uninitialized reports at every inlining site (a false positive of the header,
 // GCC bug 105593, from memory); nothing here reads an uninitialised value.
 #pragma GCC diagnostic push
 #pragma GCC diagnostic ignored "-Wmaybe-uninitialized"
-__attribute__((target("avx512f,avx512dq"))) inline __m512i mix64x8(__m512i z) {
+// As mix64_top_x4.
+__attribute__((target("avx512f,avx512dq"))) inline __m512i mix64_top_x8(__m512i z) {
     const __m512i c1 = _mm512_set1_epi64(static_cast<long long>(0xBF58476D1CE4E5B9ull));
     const __m512i c2 = _mm512_set1_epi64(static_cast<long long>(0x94D049BB133111EBull));
     z = _mm512_mullo_epi64(_mm512_xor_si512(z, _mm512_srli_epi64(z, 30)), c1);
-    z = _mm512_mullo_epi64(_mm512_xor_si512(z, _mm512_srli_epi64(z, 27)), c2);
-    return _mm512_xor_si512(z, _mm512_srli_epi64(z, 31));
+    return _mm512_mullo_epi64(_mm512_xor_si512(z, _mm512_srli_epi64(z, 27)), c2);
 }
 
-// Flips of digits first..32 (first >= 2), eight digits per step: the top bit of each
-// lane's hash is gathered into a mask register and placed at bits 32 - k.
-__attribute__((target("avx512f,avx512dq"))) uint32_t tail_flips_avx512(uint64_t x, uint64_t key,
-                                                                    unsigned first) {
+// As tail_flips_x4, eight points at a time; the hash's top bit is moved to bit 32 - k
+// by one shift and merged under a one-bit mask (VPTERNLOGQ: flips | (shifted & bit)).
+__attribute__((target("avx512f,avx512dq"))) __m512i tail_flips_x8(__m512i xv, __m512i kv,
+                                                                 unsigned first) {
     const __m512i g = _mm512_set1_epi64(static_cast<long long>(kGolden));
-    const __m512i kv = _mm512_set1_epi64(static_cast<long long>(key));
-    const __m512i xv = _mm512_set1_epi64(static_cast<long long>(x));
-    const __m512i one = _mm512_set1_epi64(1);
-    const __m512i lane = _mm512_set_epi64(7, 6, 5, 4, 3, 2, 1, 0);
-    uint64_t flips = 0;
-    for (unsigned k = first; k <= 32; k += 8) {
-        // Lanes k .. k+7 (beyond 32: computed and discarded).
-        const __m512i kk = _mm512_add_epi64(_mm512_set1_epi64(k), lane);
-        const __m512i prefix = _mm512_srlv_epi64(xv, _mm512_sub_epi64(_mm512_set1_epi64(33), kk));
-        const __m512i lead = _mm512_sllv_epi64(one, _mm512_sub_epi64(kk, one));
-        const __m512i node = _mm512_or_si512(lead, prefix);
-        const __m512i h = mix64x8(_mm512_xor_si512(kv, _mm512_mullo_epi64(node, g)));
-        const unsigned top = _mm512_movepi64_mask(h);  // bit l: the top bit of lane l
-        for (unsigned l = 0; l < 8 && k + l <= 32; ++l)
-            flips |= static_cast<uint64_t>((top >> l) & 1u) << (32 - (k + l));
+    __m512i pg = _mm512_mullo_epi64(_mm512_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))), g);
+    __m512i flips = _mm512_setzero_si512();
+    for (unsigned k = first; k <= 32; ++k) {
+        const __m512i lead = _mm512_set1_epi64(static_cast<long long>(kGolden << (k - 1)));
+        const __m512i top = mix64_top_x8(_mm512_xor_si512(kv, _mm512_add_epi64(lead, pg)));
+        const __m512i bit = _mm512_set1_epi64(1ll << (32 - k));
+        const __m512i moved = _mm512_srl_epi64(top, _mm_cvtsi32_si128(static_cast<int>(31 + k)));
+        flips = _mm512_ternarylogic_epi64(flips, moved, bit, 0xF8);  // a | (b & c)
+        const __mmask8 digit = _mm512_test_epi64_mask(xv, bit);
+        pg = _mm512_mask_add_epi64(_mm512_slli_epi64(pg, 1), digit, _mm512_slli_epi64(pg, 1), g);
     }
-    return static_cast<uint32_t>(flips);
+    return flips;
+}
+
+__attribute__((target("avx512f,avx512dq"))) size_t tails_avx512(const uint32_t *x, size_t n,
+                                                                uint64_t key, unsigned first,
+                                                                uint32_t *flips) {
+    const __m512i kv = _mm512_set1_epi64(static_cast<long long>(key));
+    size_t i = 0;
+    for (; i + 8 <= n; i += 8) {
+        const __m512i xv = _mm512_cvtepu32_epi64(_mm256_loadu_si256(reinterpret_cast<const __m256i *>(x + i)));
+        _mm256_storeu_si256(reinterpret_cast<__m256i *>(flips + i),
+                            _mm512_cvtepi64_epi32(tail_flips_x8(xv, kv, first)));
+    }
+    return i;
 }
 #pragma GCC diagnostic pop
 
 }  // namespace
 
-bool scramble_tail_avx512(uint64_t x, uint64_t key, unsigned first, uint32_t *flips) {
+size_t scramble_tails_avx512(const uint32_t *x, size_t n, uint64_t key, unsigned first,
+                             uint32_t *flips) {
     if (first < 2 || !__builtin_cpu_supports("avx512f") || !__builtin_cpu_supports("avx512dq"))
-        return false;
-    *flips = tail_flips_avx512(x, key, first);
-    return true;
+        return 0;
+    return tails_avx512(x, n, key, first, flips);
 }
 
-bool scramble_tail_avx2(uint64_t x, uint64_t key, unsigned first, uint32_t *flips) {
-    if (first < 2 || !__builtin_cpu_supports("avx2")) return false;
-    *flips = tail_flips_avx2(x, key, first);
-    return true;
+size_t scramble_tails_avx2(const uint32_t *x, size_t n, uint64_t key, unsigned first,
+                           uint32_t *flips) {
+    if (first < 2 || !__builtin_cpu_supports("avx2")) return 0;
+    return tails_avx2(x, n, key, first, flips);
 }
 
 }  // namespace cto::core::range

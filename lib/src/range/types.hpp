@@ -23,7 +23,7 @@
 
 namespace cto::core::range {
 
-inline constexpr int kSpecVersion = 2;     // generator and estimator rules (docs: "Reproducibility")
+inline constexpr int kSpecVersion = 3;     // generator and estimator rules (docs: "Reproducibility")
 inline constexpr int kRangeSlots = 14;     // inputs of solve_from_rates
 inline constexpr int kMaxProbs = 32;       // probabilities per call
 inline constexpr int kMaxReplicates = 256; // t quantiles are tabulated to R - 1 = 255
