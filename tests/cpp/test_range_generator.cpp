@@ -65,6 +65,7 @@ TEST_CASE("Sobol points: the natural-order step equals the direct XOR", "[range]
         for (uint64_t i = 1; i < 4096; ++i) {
             x ^= sobol_step(i, j);
             REQUIRE(x == sobol_point(i, j));
+            REQUIRE(sobol_steps(j)[__builtin_ctzll(i)] == sobol_step(i, j));
         }
     }
 }

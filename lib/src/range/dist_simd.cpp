@@ -67,9 +67,8 @@ CTO_AVX512 __m512d pert_x8(const DistPlan &p, __m512d u, __mmask8 half, __mmask8
         _mm512_set1_epi64(int64_t{1023} << 52)));
     const __m512i j = _mm512_and_si512(_mm512_srli_epi64(bits, 46), _mm512_set1_epi64(63));
     const __m512i j8 = _mm512_slli_epi64(j, 3);
-    const __m512d centre = _mm512_add_pd(
-        one, _mm512_div_pd(_mm512_add_pd(_mm512_cvtepi64_pd(j), _mm512_set1_pd(0.5)),
-                           _mm512_set1_pd(PertHalf::kSegments)));
+    const __m512d centre =  // 1 + (j + 1/2)/64, exact (a power of two scales exactly)
+        add(one, mul(add(_mm512_cvtepi64_pd(j), cst(0.5)), cst(1.0 / PertHalf::kSegments)));
     const __m512d tt = mul(sub(m, centre), entry(p, base, offsetof(PertHalf, seg_inv), j8));
     const PertHalf &L = p.lower, &U = p.upper;
     __m512d poly = per_half(half, L.binom[PertHalf::kTerms], U.binom[PertHalf::kTerms]);

@@ -116,17 +116,27 @@ int probe(const Sampler &s, const RangeArg *args, int *bad) {
     return CTO_OK;
 }
 
-// Points from..to-1 of every replicate; replicates are shared among the threads by
-// index (worker w takes r = w, w + T, ...), and each writes only its own replicates.
+// Points from..to-1 of every replicate, each replicate then sorted (own and other's share
+// in totalOrder, while its draws are still in the worker's cache); replicates are shared
+// among the threads by index (worker w takes r = w, w + T, ...), and each writes only its
+// own replicates.
 void run_round(const Sampler &s, Reps &reps, uint64_t from, uint64_t to, int threads) {
+    const size_t R = reps.size();
+    const size_t T = threads <= 1 ? 1 : std::min(static_cast<size_t>(threads), R);
+    std::vector<SortWork> sorts(T);
     for (ReplicateData &d : reps) {  // allocation stays in the calling thread
         d.own.resize(static_cast<size_t>(to));
         d.other.resize(static_cast<size_t>(to));
     }
-    const size_t R = reps.size();
-    const size_t T = threads <= 1 ? 1 : std::min(static_cast<size_t>(threads), R);
+    for (SortWork &w : sorts) reserve_sort(w, static_cast<size_t>(to));
     auto work = [&](size_t w) {
-        for (size_t r = w; r < R; r += T) extend_replicate(s, r, from, to, &reps[r]);
+        for (size_t r = w; r < R; r += T) {
+            ReplicateData &d = reps[r];
+            extend_replicate(s, r, from, to, &d);
+            if (d.status != CTO_OK) continue;
+            sort_total(d.own.data(), static_cast<size_t>(to), sorts[w]);
+            sort_total(d.other.data(), static_cast<size_t>(to), sorts[w]);
+        }
     };
     if (T == 1) {
         work(0);
@@ -175,11 +185,6 @@ Estimate replicate_estimate(const Reps &reps, double t, std::vector<double> &tmp
 
 // Fills the estimates for n points per replicate; returns whether the target is met.
 bool estimate(Reps &reps, size_t n, const RangeOptions &opt, RangeOut *o) {
-    std::vector<uint64_t> keys;
-    for (ReplicateData &d : reps) {
-        sort_total(d.own.data(), n, keys);
-        sort_total(d.other.data(), n, keys);
-    }
     const double t = t975(static_cast<int>(reps.size()) - 1);
     std::vector<double> tmp(reps.size());
     std::vector<const double *> seg(reps.size());

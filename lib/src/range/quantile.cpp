@@ -45,17 +45,30 @@ double order_stat(const double *const *seg, size_t nseg, size_t len, size_t r) {
     return from_key(lo);
 }
 
+// The buckets of sort_total for n >= 256 keys: about 2n, at most 2^18.
+int bucket_bits(size_t n) {
+    const int log2n = 63 - __builtin_clzll(static_cast<unsigned long long>(n));
+    return std::min(log2n + 1, 18);
+}
+
 }  // namespace
 
-void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
+void reserve_sort(SortWork &work, size_t n) {
+    work.keys.reserve(2 * n);
+    work.count.reserve(n < 256 ? 0 : (size_t{1} << bucket_bits(n)) + 1);
+}
+
+void sort_total(double *y, size_t n, SortWork &work) {
     // The integer keys are sorted instead of the doubles (same order, IEEE totalOrder).
-    // Short arrays by comparison; longer ones are first distributed into up to 2^16
-    // buckets by the leading bits of (key - least key), a counting sort (Knuth, TAOCP
-    // vol. 3, s.5.2, "distribution counting"), and each bucket is then sorted by
-    // comparison (insertion for a few keys).  The draws of a share fill a continuous
-    // range of keys, so buckets hold a key or two and the work is a few passes over the
-    // data; a crowded bucket (many equal draws) falls back to std::sort, never worse than
-    // n log n.  A sort's result does not depend on the method: equal keys are equal doubles.
+    // Short arrays by comparison.  Longer ones are distributed into about 2n buckets by
+    // the leading bits of (key - least key), a counting sort (Knuth, TAOCP vol. 3, s.5.2,
+    // "distribution counting"), and finished by one straight insertion pass over the
+    // whole array, which moves keys only within their bucket.  The draws of a share fill a
+    // continuous range of keys, so most buckets hold no key or one and the pass rarely
+    // moves anything; a crowded bucket (many equal or nearly equal draws) is sorted by
+    // std::sort first, so the work is never worse than n log n.  A sort's result does not
+    // depend on the method: equal keys are equal doubles.
+    std::vector<uint64_t> &keys = work.keys;
     if (n < 256) {
         keys.resize(n);
         for (size_t i = 0; i < n; ++i) keys[i] = order_key(y[i]);
@@ -63,10 +76,8 @@ void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
         for (size_t i = 0; i < n; ++i) y[i] = from_key(keys[i]);
         return;
     }
-    const int log2n = 63 - __builtin_clzll(static_cast<unsigned long long>(n));
-    const int want = std::min(log2n - 1, 16);  // about two keys a bucket
-    keys.resize(2 * n + (size_t{1} << want) + 1);
-    uint64_t *a = keys.data(), *b = a + n, *start = b + n;
+    keys.resize(2 * n);
+    uint64_t *a = keys.data(), *b = a + n;
     uint64_t least = ~uint64_t{0}, most = 0;
     for (size_t i = 0; i < n; ++i) {
         const uint64_t k = order_key(y[i]);
@@ -76,33 +87,41 @@ void sort_total(double *y, size_t n, std::vector<uint64_t> &keys) {
     }
     if (least == most) return;  // every value the same bits: sorted already
     const int span = 64 - __builtin_clzll(static_cast<unsigned long long>(most - least));
-    const int bits = std::min(want, span);
+    const int bits = std::min(bucket_bits(n), span);
     const int shift = span - bits;
     const size_t nb = size_t{1} << bits;
-    std::fill(start, start + nb + 1, uint64_t{0});
+    work.count.assign(nb + 1, 0u);
+    uint32_t *start = work.count.data();  // start[v + 1]: bucket v's count, start, then end
     for (size_t i = 0; i < n; ++i) ++start[((a[i] - least) >> shift) + 1];
-    for (size_t v = 0; v < nb; ++v) start[v + 1] += start[v];
-    for (size_t i = 0; i < n; ++i) b[start[(a[i] - least) >> shift]++] = a[i];
-    // start[v] is now the end of bucket v (the start of bucket v + 1).
-    for (size_t v = 0, lo = 0; v < nb; lo = start[v++]) {
-        const size_t hi = start[v];
-        if (hi - lo > 32) {
-            std::sort(b + lo, b + hi);
-            continue;
+    uint32_t sum = 0;
+    bool crowded = false;
+    for (size_t v = 1; v <= nb; ++v) {
+        const uint32_t c = start[v];
+        start[v] = sum;
+        sum += c;
+        crowded = crowded || c > 32;
+    }
+    for (size_t i = 0; i < n; ++i) b[start[((a[i] - least) >> shift) + 1]++] = a[i];
+    for (size_t v = 0; crowded && v < nb; ++v)  // now bucket v is b[start[v], start[v + 1])
+        if (start[v + 1] - start[v] > 32) std::sort(b + start[v], b + start[v + 1]);
+    for (size_t i = 1; i < n; ++i) {
+        const uint64_t k = b[i];
+        size_t j = i;
+        for (; b[j - 1] > k; --j) {  // stops at the bucket's first key at the latest
+            b[j] = b[j - 1];
+            if (j == 1) {
+                --j;
+                break;
+            }
         }
-        for (size_t i = lo + 1; i < hi; ++i) {
-            const uint64_t k = b[i];
-            size_t j = i;
-            for (; j > lo && b[j - 1] > k; --j) b[j] = b[j - 1];
-            b[j] = k;
-        }
+        b[j] = k;
     }
     for (size_t i = 0; i < n; ++i) y[i] = from_key(b[i]);
 }
 
 void sort_total(double *y, size_t n) {
-    std::vector<uint64_t> keys;
-    sort_total(y, n, keys);
+    SortWork work;
+    sort_total(y, n, work);
 }
 
 double quantile7_sorted(const double *y, size_t n, double p) {

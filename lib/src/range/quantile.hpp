@@ -23,9 +23,16 @@
 
 namespace cto::core::range {
 
-// Sorts y[0..n) in IEEE totalOrder (no NaN); `keys` is working memory (may throw
-// std::bad_alloc; the engine catches it).
-void sort_total(double *y, size_t n, std::vector<uint64_t> &keys);
+// Sorts y[0..n) in IEEE totalOrder (no NaN); `work` is working memory, reused between
+// calls (may throw std::bad_alloc; the engine catches it).
+struct SortWork {
+    std::vector<uint64_t> keys;
+    std::vector<uint32_t> count;
+};
+void sort_total(double *y, size_t n, SortWork &work);
+// Reserves `work` for arrays of up to n values, so that sort_total then never allocates
+// (and so never throws: the engine sorts in its worker threads).
+void reserve_sort(SortWork &work, size_t n);
 void sort_total(double *y, size_t n);
 
 // Definition 7 quantile of sorted y[0..n), n >= 1, p in [0, 1].

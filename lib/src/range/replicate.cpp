@@ -20,8 +20,10 @@ constexpr size_t kBlock = 32;
 void draw_block(const Sampler &s, int j, uint64_t key, const uint32_t *mask, uint64_t b,
                 size_t m, double *col) {
     uint32_t x[kBlock], y[kBlock];
-    x[0] = sobol_point(b, j);
-    for (size_t i = 1; i < m; ++i) x[i] = x[i - 1] ^ sobol_step(b + i, j);
+    const uint32_t *step = sobol_steps(j);  // X_i = X_{i-1} ^ step[ctz(i)] (sobol.hpp)
+    uint32_t cur = sobol_point(b, j);
+    x[0] = cur;
+    for (size_t i = 1; i < m; ++i) x[i] = cur ^= step[__builtin_ctzll(b + i)];
     owen_scramble_block(x, m, key, s.prefix_bits, mask, y);
     dist_quantile_block(s.plan[j], y, m, col);
 }

@@ -48,7 +48,7 @@ struct Sampler {
 };
 
 struct ReplicateData {
-    std::vector<double> own, other;  // the samples (sorted in totalOrder between rounds)
+    std::vector<double> own, other;  // the samples (sorted in totalOrder after each round)
     std::vector<uint32_t> masks;     // scrambling cache: n_uncertain x 2^prefix_bits, built
                                      // by the first extend_replicate (sized by the caller)
     Sum own_sum, other_sum;          // in index order

@@ -34,22 +34,22 @@ __attribute__((target("avx2"))) inline __m256i mix64_top_x4(__m256i z) {
 }
 
 // The flips of digits first..32 of the coordinates in the lanes (32-bit values in 64-bit
-// lanes), four points at a time.  The node's product with G needs no multiplication: the
-// leading bit and the prefix are disjoint, so node G = 2^(k-1) G + prefix G, and prefix
-// G follows digit by digit from prefix_{k+1} = 2 prefix_k + digit k:
-// P_{k+1} = 2 P_k + (digit k ? G : 0) (mod 2^64).
+// lanes), four points at a time.  The node's product with G needs one multiplication per
+// point, not one per digit: node_{k+1} = 2 node_k + digit k (the leading bit moves up with
+// the prefix), so node_{k+1} G = 2 node_k G + (digit k ? G : 0) (mod 2^64).
 __attribute__((target("avx2"))) __m256i tail_flips_x4(__m256i xv, __m256i kv, unsigned first) {
     const __m256i g = _mm256_set1_epi64x(static_cast<long long>(kGolden));
     const __m256i one = _mm256_set1_epi64x(1);
-    __m256i pg = mul64(_mm256_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))), g);
+    const __m256i node = _mm256_or_si256(_mm256_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))),
+                                         _mm256_set1_epi64x(1ll << (first - 1)));
+    __m256i ng = mul64(node, g);
     __m256i flips = _mm256_setzero_si256();
     for (unsigned k = first; k <= 32; ++k) {
-        const __m256i lead = _mm256_set1_epi64x(static_cast<long long>(kGolden << (k - 1)));
-        const __m256i h = mix64_top_x4(_mm256_xor_si256(kv, _mm256_add_epi64(lead, pg)));
+        const __m256i h = mix64_top_x4(_mm256_xor_si256(kv, ng));
         const __m128i at = _mm_cvtsi32_si128(static_cast<int>(32 - k));
         flips = _mm256_or_si256(flips, _mm256_sll_epi64(_mm256_srli_epi64(h, 63), at));
         const __m256i digit = _mm256_and_si256(_mm256_srl_epi64(xv, at), one);
-        pg = _mm256_add_epi64(_mm256_slli_epi64(pg, 1),
+        ng = _mm256_add_epi64(_mm256_slli_epi64(ng, 1),
                               _mm256_and_si256(_mm256_sub_epi64(_mm256_setzero_si256(), digit), g));
     }
     return flips;
@@ -81,21 +81,22 @@ __attribute__((target("avx512f,avx512dq"))) inline __m512i mix64_top_x8(__m512i 
     return _mm512_mullo_epi64(_mm512_xor_si512(z, _mm512_srli_epi64(z, 27)), c2);
 }
 
-// As tail_flips_x4, eight points at a time; the hash's top bit is moved to bit 32 - k
+// As tail_flips_x4, eight points at a time.  The hash's top bit is moved to bit 32 - k
 // by one shift and merged under a one-bit mask (VPTERNLOGQ: flips | (shifted & bit)).
 __attribute__((target("avx512f,avx512dq"))) __m512i tail_flips_x8(__m512i xv, __m512i kv,
                                                                  unsigned first) {
     const __m512i g = _mm512_set1_epi64(static_cast<long long>(kGolden));
-    __m512i pg = _mm512_mullo_epi64(_mm512_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))), g);
+    const __m512i node = _mm512_or_si512(_mm512_srl_epi64(xv, _mm_cvtsi32_si128(static_cast<int>(33 - first))),
+                                         _mm512_set1_epi64(1ll << (first - 1)));
+    __m512i ng = _mm512_mullo_epi64(node, g);
     __m512i flips = _mm512_setzero_si512();
     for (unsigned k = first; k <= 32; ++k) {
-        const __m512i lead = _mm512_set1_epi64(static_cast<long long>(kGolden << (k - 1)));
-        const __m512i top = mix64_top_x8(_mm512_xor_si512(kv, _mm512_add_epi64(lead, pg)));
+        const __m512i top = mix64_top_x8(_mm512_xor_si512(kv, ng));
         const __m512i bit = _mm512_set1_epi64(1ll << (32 - k));
         const __m512i moved = _mm512_srl_epi64(top, _mm_cvtsi32_si128(static_cast<int>(31 + k)));
         flips = _mm512_ternarylogic_epi64(flips, moved, bit, 0xF8);  // a | (b & c)
-        const __mmask8 digit = _mm512_test_epi64_mask(xv, bit);
-        pg = _mm512_mask_add_epi64(_mm512_slli_epi64(pg, 1), digit, _mm512_slli_epi64(pg, 1), g);
+        const __m512i twice = _mm512_slli_epi64(ng, 1);
+        ng = _mm512_mask_add_epi64(twice, _mm512_test_epi64_mask(xv, bit), twice, g);
     }
     return flips;
 }

@@ -34,6 +34,10 @@ uint32_t sobol_point(uint64_t i, int j);
 // step is v_1 ^ ... ^ v_{ctz(i)+1}).
 uint32_t sobol_step(uint64_t i, int j);
 
+// The row of dimension j of those steps: sobol_step(i, j) == sobol_steps(j)[ctz(i)] for
+// 1 <= i < 2^32 (for a loop that steps many points; j < kSobolDims).
+const uint32_t *sobol_steps(int j);
+
 }  // namespace cto::core::range
 
 #endif  // CTO_RANGE_SOBOL_HPP
