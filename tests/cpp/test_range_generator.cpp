@@ -126,9 +126,9 @@ TEST_CASE("Owen scrambling keeps the net: one point per interval, u in (0, 1)", 
 }
 
 TEST_CASE("Owen scrambling: the prefix cache and the vector paths give the same bits", "[range]") {
-    // owen_scramble_block is a cache of owen_scramble's flips (scramble.hpp) with the
-    // remaining digits hashed eight or four points at a time: equal for every x, on each
-    // path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them) and the scalar
+    // owen_scramble_block is a cache of owen_scramble's flips (scramble.hpp; built eight
+    // prefixes at a time with AVX-512, and by the scalar loop) with the remaining digits
+    // hashed eight or four points at a time: equal for every x, on each path: AVX-512 and AVX2 (scramble_simd.cpp, where the CPU has them) and the scalar
     // one; checked on 2^16 pseudo-random x (SplitMix64) and the extremes, for several cache
     // depths, in blocks of 37 (so that every path also leaves points to the next one).  The
     // paths the CPU has are named in the test output.
@@ -142,6 +142,9 @@ TEST_CASE("Owen scrambling: the prefix cache and the vector paths give the same 
     for (int L : {0, 1, 2, 7, 12, 16}) {
         const uint64_t key = scramble_key(20240601u, 3, static_cast<uint64_t>(L));
         owen_prefix_masks(key, L, mask.data());
+        std::vector<uint32_t> scalar(mask.size());  // the cache's vector and scalar builds agree
+        owen_prefix_masks(key, L, scalar.data(), Simd::kScalar);
+        for (size_t t = 0; t < (size_t{1} << L); ++t) REQUIRE(mask[t] == scalar[t]);
         for (size_t t = 0; t < x.size(); ++t) want[t] = owen_scramble(x[t], key);
         for (Simd path : {Simd::kAuto, Simd::kAvx2, Simd::kScalar}) {
             for (size_t b = 0; b < x.size(); b += 37)

@@ -69,7 +69,8 @@ CTO_AVX512 __m512d pert_x8(const DistPlan &p, __m512d u, __mmask8 half, __mmask8
     const __m512i j8 = _mm512_slli_epi64(j, 3);
     const __m512d centre =  // 1 + (j + 1/2)/64, exact (a power of two scales exactly)
         add(one, mul(add(_mm512_cvtepi64_pd(j), cst(0.5)), cst(1.0 / PertHalf::kSegments)));
-    const __m512d tt = mul(sub(m, centre), entry(p, base, offsetof(PertHalf, seg_inv), j8));
+    // 1/c_j divided here is the table's seg_inv[j] (both correctly rounded): one gather less.
+    const __m512d tt = mul(sub(m, centre), _mm512_div_pd(one, centre));
     const PertHalf &L = p.lower, &U = p.upper;
     __m512d poly = per_half(half, L.binom[PertHalf::kTerms], U.binom[PertHalf::kTerms]);
     for (int k = PertHalf::kTerms - 1; k >= 1; --k)

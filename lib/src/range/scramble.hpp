@@ -39,17 +39,17 @@ inline uint64_t scramble_key(uint64_t seed, uint64_t replicate, uint64_t dim) {
 // Owen-scrambled coordinate Y of the 32-digit coordinate X under `key`.
 uint32_t owen_scramble(uint32_t x, uint64_t key);
 
+// Which path owen_prefix_masks and owen_scramble_block take: kAuto the widest the CPU
+// has (AVX-512, AVX2, scalar); the others force a narrower one (the cache has AVX-512 and
+// scalar builds), so that tests compare every path on one machine.
+enum class Simd { kAuto, kAvx2, kScalar };
+
 // A cache of the same flips: the flips of digits 1..L+1 depend only on the first L digits
 // of X, so they can be computed once per (key, value of the first L digits) and reused by
 // every point.  owen_prefix_masks fills mask[t] for t < 2^L (2^(L+1) - 1 hashes).
 // 0 <= L <= kMaxPrefixBits.
 inline constexpr int kMaxPrefixBits = 16;
-void owen_prefix_masks(uint64_t key, int L, uint32_t *mask);
-
-// Which path owen_scramble_block takes: kAuto the widest the CPU has (AVX-512, AVX2,
-// scalar); the others force a narrower one, so that tests compare every path on one
-// machine.
-enum class Simd { kAuto, kAvx2, kScalar };
+void owen_prefix_masks(uint64_t key, int L, uint32_t *mask, Simd simd = Simd::kAuto);
 
 // y[i] = owen_scramble(x[i], key) for i < n, from the cache of depth L and 31 - L hashes a
 // coordinate (the same bits on every path).
@@ -64,6 +64,11 @@ size_t scramble_tails_avx512(const uint32_t *x, size_t n, uint64_t key, unsigned
                              uint32_t *flips);
 size_t scramble_tails_avx2(const uint32_t *x, size_t n, uint64_t key, unsigned first,
                            uint32_t *flips);
+
+// Level k (1 <= k) of owen_prefix_masks with AVX-512: writes mask[q] for the prefixes q
+// from 2^k - 1 down to the returned bound (8), or nothing (returning 2^k) for k < 3 or a
+// CPU without it; the caller writes the prefixes below the bound.
+uint64_t prefix_level_avx512(uint64_t key, unsigned k, uint32_t *mask);
 
 // u = (Y + 0.5) 2^-32, exact: Y + 0.5 needs 33 significant bits.
 inline double unit_from_bits(uint32_t y) {

@@ -113,6 +113,28 @@ __attribute__((target("avx512f,avx512dq"))) size_t tails_avx512(const uint32_t *
     }
     return i;
 }
+// Level k of the prefix cache (owen_prefix_masks, scramble.cpp) for the prefixes q of k
+// digits from 2^k - 1 down to 8, eight at a time: mask[q] = mask[q >> 1] | flip(k + 1, q)
+// << (31 - k), with flip(k + 1, q) the top bit of mix64(key ^ (2^k | q) G).  In place: a
+// group q = 8t..8t+7 reads its parents 4t..4t+3, below every group still to be written
+// (t >= 1), so going down never reads a mask of this level.
+__attribute__((target("avx512f,avx512dq"))) void prefix_level_x8(uint64_t key, unsigned k,
+                                                                uint32_t *mask) {
+    const __m512i g = _mm512_set1_epi64(static_cast<long long>(kGolden));
+    const __m512i kv = _mm512_set1_epi64(static_cast<long long>(key));
+    const __m512i lane = _mm512_set_epi64(7, 6, 5, 4, 3, 2, 1, 0);
+    const __m256i twice = _mm256_set_epi32(3, 3, 2, 2, 1, 1, 0, 0);
+    const __m128i at = _mm_cvtsi32_si128(static_cast<int>(31 - k));
+    for (uint64_t t = (uint64_t{1} << k) / 8; t-- > 1;) {
+        const __m512i node = _mm512_or_si512(_mm512_set1_epi64(static_cast<long long>((uint64_t{1} << k) | (8 * t))), lane);
+        const __m512i top = mix64_top_x8(_mm512_xor_si512(kv, _mm512_mullo_epi64(node, g)));
+        const __m256i flips = _mm512_cvtepi64_epi32(_mm512_sll_epi64(_mm512_srli_epi64(top, 63), at));
+        const __m256i parent = _mm256_permutevar8x32_epi32(
+            _mm256_castsi128_si256(_mm_loadu_si128(reinterpret_cast<const __m128i *>(mask + 4 * t))), twice);
+        _mm256_storeu_si256(reinterpret_cast<__m256i *>(mask + 8 * t), _mm256_or_si256(parent, flips));
+    }
+}
+
 #pragma GCC diagnostic pop
 
 }  // namespace
@@ -122,6 +144,13 @@ size_t scramble_tails_avx512(const uint32_t *x, size_t n, uint64_t key, unsigned
     if (first < 2 || !__builtin_cpu_supports("avx512f") || !__builtin_cpu_supports("avx512dq"))
         return 0;
     return tails_avx512(x, n, key, first, flips);
+}
+
+uint64_t prefix_level_avx512(uint64_t key, unsigned k, uint32_t *mask) {
+    if (k < 3 || !__builtin_cpu_supports("avx512f") || !__builtin_cpu_supports("avx512dq"))
+        return uint64_t{1} << k;
+    prefix_level_x8(key, k, mask);
+    return 8;
 }
 
 size_t scramble_tails_avx2(const uint32_t *x, size_t n, uint64_t key, unsigned first,
