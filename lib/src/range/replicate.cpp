@@ -14,16 +14,18 @@ namespace {
 // inverse CDF run over the whole block, where the vector units and the out-of-order core
 // find independent work), then the model runs point by point in index order.  The block
 // is a working size only: every point gets the same bits whatever its position in one.
-constexpr size_t kBlock = 32;
+constexpr size_t kBlock = 64;
 
-// The scrambled Sobol' coordinates of points b .. b+m-1 of one input, as inputs.
-void draw_block(const Sampler &s, int j, uint64_t key, const uint32_t *mask, uint64_t b,
-                size_t m, double *col) {
+// The scrambled Sobol' coordinates of points b .. b+m-1 of one input, as inputs; *last
+// is X_{b-1} (any value for b = from, which starts afresh) and becomes X_{b+m-1}.
+void draw_block(const Sampler &s, int j, uint64_t key, const uint32_t *mask, uint64_t from,
+                uint64_t b, size_t m, uint32_t *last, double *col) {
     uint32_t x[kBlock], y[kBlock];
     const uint32_t *step = sobol_steps(j);  // X_i = X_{i-1} ^ step[ctz(i)] (sobol.hpp)
-    uint32_t cur = sobol_point(b, j);
+    uint32_t cur = b == from ? sobol_point(b, j) : *last ^ step[__builtin_ctzll(b)];
     x[0] = cur;
     for (size_t i = 1; i < m; ++i) x[i] = cur ^= step[__builtin_ctzll(b + i)];
+    *last = cur;
     owen_scramble_block(x, m, key, s.prefix_bits, mask, y);
     dist_quantile_block(s.plan[j], y, m, col);
 }
@@ -50,9 +52,11 @@ void extend_replicate(const Sampler &s, uint64_t r, uint64_t from, uint64_t to,
         slot[nu++] = j;
     }
     double col[kSobolDims][kBlock];
+    uint32_t last[kSobolDims] = {};
     for (uint64_t b = from; b < to; b += kBlock) {
         const size_t m = static_cast<size_t>(std::min<uint64_t>(kBlock, to - b));
-        for (int u = 0; u < nu; ++u) draw_block(s, slot[u], key[u], mask[u], b, m, col[u]);
+        for (int u = 0; u < nu; ++u)
+            draw_block(s, slot[u], key[u], mask[u], from, b, m, &last[u], col[u]);
         for (size_t t = 0; t < m; ++t) {
             for (int u = 0; u < nu; ++u) x[slot[u]] = col[u][t];
             Draw dr{};
