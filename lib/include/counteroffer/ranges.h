@@ -25,8 +25,8 @@
  * estimates reported, never a silent rough number); quantiles by Hyndman & Fan (1996)
  * definition 7 over all R n draws, standard errors from the replicates.  The same inputs
  * and seed give the same bits whatever the thread count (spec_version states the rules).
- * Memory: 16 R n bytes at the final size, at most 256 MiB, and a cache of scrambling
- * flips of at most 32 MiB.
+ * Memory: 16 R n bytes at the final size, at most 256 MiB, a cache of scrambling flips
+ * of at most 32 MiB, and about 16 n bytes of sorting work per thread.
  *
  * Inputs, in the catalogue order of solve_from_rates: 0 own_rate, 1 other_rate, 2 days,
  * 3 breakdown_prob, 4 own_fallback, 5 other_fallback, 6 own_inside, 7 other_inside,

@@ -19,7 +19,8 @@
  *  until every requested quantile of own share has a half-width of at most half a unit
  *  of its `digits`-th significant digit, or n = 2^log2_max.
  *  Inputs: in (size = sizeof), opt (size = sizeof; cto_range_default_options), out
- *  (size = sizeof).  Memory: 16 R n bytes at the final n, at most 256 MiB.
+ *  (size = sizeof).  Memory: 16 R n bytes at the final n, at most 256 MiB, and about
+ *  16 n bytes of sorting work per thread.
  *  Status: CTO_OK -> every estimate, targets met;
  *          CTO_E_PRECISION (proposed, 6) -> every estimate, some own quantile short of
  *          the target at n = 2^log2_max (its `digits` says how many it has);

@@ -51,7 +51,7 @@ void extend_replicate(const Sampler &s, uint64_t r, uint64_t from, uint64_t to,
         mask[nu] = m;
         slot[nu++] = j;
     }
-    double col[kSobolDims][kBlock];
+    double col[kSobolDims][kBlock];  // 32 KiB of stack at most
     uint32_t last[kSobolDims] = {};
     for (uint64_t b = from; b < to; b += kBlock) {
         const size_t m = static_cast<size_t>(std::min<uint64_t>(kBlock, to - b));
