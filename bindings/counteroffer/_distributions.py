@@ -11,7 +11,7 @@ validates it and names the first invalid input.
 from __future__ import annotations
 
 import dataclasses
-from typing import Any, List, Optional, Sequence, Tuple
+from typing import Any, List, Optional, Sequence, Tuple, Union
 
 from . import _structs
 from ._convert import Invalid, _one
@@ -39,6 +39,12 @@ class Distribution:
     def __repr__(self) -> str:
         inner = [self.low] + ([] if self.mode is None else [self.mode]) + [self.high]
         return f"{self.shape}({', '.join(repr(v) for v in inner)})"
+
+
+#: What share_range and share_swing take for each input: a number (fixed), (low, high),
+#: (low, mode, high) or a Distribution (the type the stub gives every input).
+Input = Union[float, int, bool, None, Tuple[float, float], Tuple[float, float, float],
+              List[float], Distribution]
 
 
 def uniform(low: float, high: float) -> Distribution:

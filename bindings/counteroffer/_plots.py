@@ -8,6 +8,9 @@ from __future__ import annotations
 
 from typing import Any, Optional, Sequence, Tuple
 
+from ._offers import OfferPathRows
+from ._range_results import RangeResult, SwingResult
+
 #: probabilities for plot_share_range's histogram (25 quantiles from 2% to 98%, with 10%,
 #: 50% and 90% among them): pass them to share_range(probabilities=...)
 PLOT_PROBABILITIES: Tuple[float, ...] = tuple(round(0.02 + 0.04 * k, 2) for k in range(25))
@@ -26,7 +29,7 @@ def _axes(ax: Any) -> Any:
     return _pyplot().subplots()[1] if ax is None else ax
 
 
-def plot_share_range(result: Any, marks: Sequence[float] = (0.1, 0.5, 0.9), ax: Any = None,
+def plot_share_range(result: RangeResult, marks: Sequence[float] = (0.1, 0.5, 0.9), ax: Any = None,
                      title: Optional[str] = None) -> Any:
     """Own share's distribution as a histogram whose bars lie between consecutive
     quantiles of ``result`` (a RangeResult; bar area = the probability between them, so
@@ -57,7 +60,7 @@ def plot_share_range(result: Any, marks: Sequence[float] = (0.1, 0.5, 0.9), ax: 
     return ax
 
 
-def plot_swing(result: Any, ax: Any = None, title: Optional[str] = None) -> Any:
+def plot_swing(result: SwingResult, ax: Any = None, title: Optional[str] = None) -> Any:
     """The tornado chart of a SwingResult: a bar per uncertain input from own share at
     its low to own share at its high, largest swing on top, the base share as a line."""
     ax = _axes(ax)
@@ -79,7 +82,7 @@ def plot_swing(result: Any, ax: Any = None, title: Optional[str] = None) -> Any:
     return ax
 
 
-def plot_offer_path(path: Any, ax: Any = None, title: Optional[str] = None) -> Tuple[Any, Any]:
+def plot_offer_path(path: OfferPathRows, ax: Any = None, title: Optional[str] = None) -> Tuple[Any, Any]:
     """The offers of an OfferPathRows by round (or calendar day when it has ``days``)
     on ``ax``, and the probability of agreement by that round on a second y axis.
     Returns (offer axes, probability axes)."""

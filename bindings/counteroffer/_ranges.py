@@ -17,7 +17,7 @@ import numpy as np
 
 from . import _core, _errors, _structs
 from ._convert import Invalid, fmt
-from ._distributions import check_shape, library_args
+from ._distributions import Input, check_shape, library_args
 from ._evaluate import act, check_plausible
 from ._range_results import RangeResult, SwingResult, SwingRow, estimate
 from ._spec import STATUS_NAMES, FunctionSpec, Status, load_specs
@@ -111,10 +111,11 @@ def _result(out: Dict[str, Any], names: Sequence[str], shown: Sequence[Any]) -> 
 
 
 def share_range(
-    own_rate: Any, other_rate: Any, days: Any, breakdown_prob: Any = 0, own_fallback: Any = 0,
-    other_fallback: Any = 0, own_inside: Any = 0, other_inside: Any = 0,
-    own_outside: Any = None, other_outside: Any = None, surplus: Any = 1,
-    own_opens: Any = True, basis: Any = 365, continuous: Any = False, *,
+    own_rate: Input, other_rate: Input, days: Input, breakdown_prob: Input = 0,
+    own_fallback: Input = 0, other_fallback: Input = 0, own_inside: Input = 0,
+    other_inside: Input = 0, own_outside: Input = None, other_outside: Input = None,
+    surplus: Input = 1, own_opens: Input = True, basis: Input = 365,
+    continuous: Input = False, *,
     shape: str = "pert", probabilities: Any = (0.1, 0.5, 0.9), seed: int = 0,
     replicates: int = 16, digits: int = 3, log2_start: int = 10, log2_max: int = 20,
     threads: int = 1,
@@ -166,10 +167,11 @@ def share_range(
 
 
 def share_swing(
-    own_rate: Any, other_rate: Any, days: Any, breakdown_prob: Any = 0, own_fallback: Any = 0,
-    other_fallback: Any = 0, own_inside: Any = 0, other_inside: Any = 0,
-    own_outside: Any = None, other_outside: Any = None, surplus: Any = 1,
-    own_opens: Any = True, basis: Any = 365, continuous: Any = False, *,
+    own_rate: Input, other_rate: Input, days: Input, breakdown_prob: Input = 0,
+    own_fallback: Input = 0, other_fallback: Input = 0, own_inside: Input = 0,
+    other_inside: Input = 0, own_outside: Input = None, other_outside: Input = None,
+    surplus: Input = 1, own_opens: Input = True, basis: Input = 365,
+    continuous: Input = False, *,
     shape: str = "pert",
 ) -> SwingResult:
     """One-at-a-time swing of own share over each uncertain input (a tornado chart).
