@@ -19,7 +19,8 @@ san="${CTO_FUZZ_SANITIZE-address,undefined}"
 # The catalogue's generated sources (named functions, table rows, the named dispatch).
 /usr/bin/python3 "$root/lib/gen/gen_core.py" "$out/generated"
 mapfile -t sources < <(find "$root/lib/src" -name '*.cpp' | sort)
-clang++ -std=c++17 -O2 -g -fno-omit-frame-pointer -ffp-contract=off \
+# Warnings are errors here too (clang sees what GCC does not).
+clang++ -std=c++17 -O2 -g -fno-omit-frame-pointer -ffp-contract=off -Wall -Wextra -Werror \
   -fsanitize=fuzzer${san:+,$san} -fno-sanitize-recover=all \
   -I"$root/lib/include" -I"$root/lib/src" -I"$out/generated" "${sources[@]}" \
   "$out/generated/named_entries.cpp" "$root/tests/fuzz/fuzz_capi.cpp" \

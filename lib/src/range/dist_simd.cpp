@@ -21,8 +21,10 @@ namespace {
 // GCC 12's AVX-512 intrinsics pass an undefined vector as the unused merge source, which
 // -Wmaybe-uninitialized reports at every inlining site (a false positive of the header,
 // GCC bug 105593, from memory); nothing here reads an uninitialised value.
+#if defined(__GNUC__) && !defined(__clang__)  // clang has no such warning
 #pragma GCC diagnostic push
 #pragma GCC diagnostic ignored "-Wmaybe-uninitialized"
+#endif
 
 #define CTO_AVX512 __attribute__((target("avx512f,avx512dq")))
 
@@ -140,7 +142,9 @@ CTO_AVX512 size_t block(const DistPlan &p, const uint32_t *y, size_t n, double *
 }
 
 #undef CTO_AVX512
+#if defined(__GNUC__) && !defined(__clang__)
 #pragma GCC diagnostic pop
+#endif
 
 }  // namespace
 

@@ -71,8 +71,10 @@ __attribute__((target("avx2"))) size_t tails_avx2(const uint32_t *x, size_t n, u
 // GCC 12's AVX-512 intrinsics pass an undefined vector as the unused merge source, which
 // -Wmaybe-uninitialized reports at every inlining site (a false positive of the header,
 // GCC bug 105593, from memory); nothing here reads an uninitialised value.
+#if defined(__GNUC__) && !defined(__clang__)  // clang has no such warning
 #pragma GCC diagnostic push
 #pragma GCC diagnostic ignored "-Wmaybe-uninitialized"
+#endif
 // As mix64_top_x4.
 __attribute__((target("avx512f,avx512dq"))) inline __m512i mix64_top_x8(__m512i z) {
     const __m512i c1 = _mm512_set1_epi64(static_cast<long long>(0xBF58476D1CE4E5B9ull));
@@ -135,7 +137,9 @@ __attribute__((target("avx512f,avx512dq"))) void prefix_level_x8(uint64_t key, u
     }
 }
 
+#if defined(__GNUC__) && !defined(__clang__)
 #pragma GCC diagnostic pop
+#endif
 
 }  // namespace
 
