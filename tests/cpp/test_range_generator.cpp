@@ -63,9 +63,8 @@ TEST_CASE("Sobol points: the natural-order step equals the direct XOR", "[range]
     for (int j : {0, 1, 4, 13, 63}) {
         uint32_t x = 0;
         for (uint64_t i = 1; i < 4096; ++i) {
-            x ^= sobol_step(i, j);
+            x ^= sobol_steps(j)[__builtin_ctzll(i)];
             REQUIRE(x == sobol_point(i, j));
-            REQUIRE(sobol_steps(j)[__builtin_ctzll(i)] == sobol_step(i, j));
         }
     }
 }

@@ -52,7 +52,7 @@ CTO_AVX512 inline __m512d entry(const DistPlan &p, __m512i base, size_t field, _
 
 // Eight draws: u in the lanes, `half` the lanes above 1/2 (drawn from the upper half).
 CTO_AVX512 __m512d pert_x8(const DistPlan &p, __m512d u, __mmask8 half, __mmask8 *redo) {
-    const __m512d one = _mm512_set1_pd(1.0);
+    const __m512d one = cst(1.0);
     const __m512d v = _mm512_mask_sub_pd(u, half, one, u);  // 1 - u, exact for u >= 1/2
     // Byte offset of each lane's half in the plan.
     const __m512i base = _mm512_mask_blend_epi64(half, bytes(offsetof(DistPlan, lower)),
@@ -83,9 +83,9 @@ CTO_AVX512 __m512d pert_x8(const DistPlan &p, __m512d u, __mmask8 half, __mmask8
     // The interval and the quintic Hermite interpolant (pert_half_inverse).
     const __m512d pos = mul(s, per_half(half, L.inv_h, U.inv_h));
     const __m512i k = _mm512_min_epi64(_mm512_cvttpd_epi64(pos), _mm512_set1_epi64(kPertKnots - 1));
-    const __m512d w = _mm512_sub_pd(pos, _mm512_cvtepi64_pd(k));
+    const __m512d w = sub(pos, _mm512_cvtepi64_pd(k));
     const __m512d h = per_half(half, L.h, U.h);
-    const __m512d w2 = _mm512_mul_pd(w, w), w3 = _mm512_mul_pd(w2, w);
+    const __m512d w2 = mul(w, w), w3 = mul(w2, w);
     const __m512d h5 = mul(w3, add(cst(10.0), mul(w, add(cst(-15.0), mul(cst(6.0), w)))));
     const __m512d h1 = add(w, mul(w3, add(cst(-6.0), mul(w, sub(cst(8.0), mul(cst(3.0), w))))));
     const __m512d h4 = mul(w3, add(cst(-4.0), mul(w, sub(cst(7.0), mul(cst(3.0), w)))));

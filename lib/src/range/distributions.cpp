@@ -52,13 +52,6 @@ DistPlan plan_without_table(const Dist &d) {
     return p;
 }
 
-inline double uniform_quantile(const DistPlan &p, double u) { return p.d.low + u * p.width; }
-
-inline double triangular_quantile(const DistPlan &p, double u) {
-    if (u < p.fm) return p.d.low + p.width * std::sqrt(u * p.fm);
-    return p.d.high - p.width * std::sqrt((1.0 - u) * p.one_minus_fm);
-}
-
 // The PERT quantile from the plan: tables when built, else the iterative inverse.
 double pert_quantile(const DistPlan &p, double u) {
     const Dist &d = p.d;
@@ -89,30 +82,19 @@ double dist_quantile(const DistPlan &p, double u) {
     if (d.kind == kFixed) return d.mode;
     if (!(p.width > 0.0)) return d.low;  // lo = hi: a constant
     switch (d.kind) {
-        case kUniform: return uniform_quantile(p, u);
-        case kTriangular: return triangular_quantile(p, u);
-        default: return pert_quantile(p, u);
+        case kUniform:
+            return d.low + u * p.width;
+        case kTriangular:
+            if (u < p.fm) return d.low + p.width * std::sqrt(u * p.fm);
+            return d.high - p.width * std::sqrt((1.0 - u) * p.one_minus_fm);
+        default:  // kPert
+            return pert_quantile(p, u);
     }
 }
 
 void dist_quantile_block(const DistPlan &p, const uint32_t *y, size_t n, double *x) {
-    const Dist &d = p.d;
-    if (d.kind == kFixed || !(p.width > 0.0)) {
-        for (size_t i = 0; i < n; ++i) x[i] = d.kind == kFixed ? d.mode : d.low;
-        return;
-    }
-    switch (d.kind) {
-        case kUniform:
-            for (size_t i = 0; i < n; ++i) x[i] = uniform_quantile(p, unit_from_bits(y[i]));
-            return;
-        case kTriangular:
-            for (size_t i = dist_block_avx512(p, y, n, x); i < n; ++i)
-                x[i] = triangular_quantile(p, unit_from_bits(y[i]));
-            return;
-        default:  // kPert
-            for (size_t i = dist_block_avx512(p, y, n, x); i < n; ++i)
-                x[i] = pert_quantile(p, unit_from_bits(y[i]));
-    }
+    for (size_t i = dist_block_avx512(p, y, n, x); i < n; ++i)
+        x[i] = dist_quantile(p, unit_from_bits(y[i]));
 }
 
 double dist_quantile(const Dist &d, double u) {

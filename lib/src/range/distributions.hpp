@@ -67,7 +67,7 @@ DistPlan dist_plan(const Dist &d);  // d must be valid
 double dist_quantile(const DistPlan &p, double u);
 
 // x[i] = dist_quantile(p, unit_from_bits(y[i])) for i < n (scramble.hpp's u = (y + 1/2)
-// 2^-32): the same bits, one loop per kind so that the draws of a block overlap.
+// 2^-32): the same bits, triangular and PERT eight at a time where the CPU has AVX-512.
 void dist_quantile_block(const DistPlan &p, const uint32_t *y, size_t n, double *x);
 
 // The triangular and PERT draws of dist_quantile_block eight at a time with AVX-512

@@ -31,7 +31,7 @@ void root_build(double a, PertHalf *t) {
     for (int q = 1; q <= PertHalf::kOctaves; ++q)
         t->octave[q] = static_cast<double>(std::exp2(-static_cast<long double>(q) * ia));
     for (int j = 0; j < PertHalf::kSegments; ++j) {
-        const double c = 1.0 + (j + 0.5) * (1.0 / PertHalf::kSegments);  // exact
+        const double c = pert_segment_centre(j);
         t->seg_root[j] = static_cast<double>(std::pow(static_cast<long double>(c), ia));
         t->seg_inv[j] = 1.0 / c;
     }
@@ -55,7 +55,7 @@ double pert_half_root(const PertHalf &t, double v) {
     double m;
     std::memcpy(&m, &mbits, sizeof m);
     const int j = static_cast<int>((bits >> 46) & 63);  // the segment: m's first six bits
-    const double tt = (m - (1.0 + (j + 0.5) * (1.0 / PertHalf::kSegments))) * t.seg_inv[j];
+    const double tt = (m - pert_segment_centre(j)) * t.seg_inv[j];
     double p = t.binom[PertHalf::kTerms];
     for (int k = PertHalf::kTerms - 1; k >= 1; --k) p = p * tt + t.binom[k];
     const double c = t.seg_root[j];

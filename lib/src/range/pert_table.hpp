@@ -52,6 +52,11 @@ struct PertHalf {
 // one by Halley steps (about two incomplete betas a knot).
 void pert_half_build(double a, double b, double beta, PertHalf *t);
 
+// The centre c_j = 1 + (j + 1/2)/64 of segment j of [1, 2), exact.
+inline double pert_segment_centre(int j) {
+    return 1.0 + (j + 0.5) * (1.0 / PertHalf::kSegments);
+}
+
 // s = v^(1/a) for v in (0, 1/2] (see above).
 double pert_half_root(const PertHalf &t, double v);
 

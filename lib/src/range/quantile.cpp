@@ -104,16 +104,10 @@ void sort_total(double *y, size_t n, SortWork &work) {
     for (size_t i = 0; i < n; ++i) b[start[((a[i] - least) >> shift) + 1]++] = a[i];
     for (size_t v = 0; crowded && v < nb; ++v)  // now bucket v is b[start[v], start[v + 1])
         if (start[v + 1] - start[v] > 32) std::sort(b + start[v], b + start[v + 1]);
-    for (size_t i = 1; i < n; ++i) {
+    for (size_t i = 1; i < n; ++i) {  // moves a key within its bucket only
         const uint64_t k = b[i];
         size_t j = i;
-        for (; b[j - 1] > k; --j) {  // stops at the bucket's first key at the latest
-            b[j] = b[j - 1];
-            if (j == 1) {
-                --j;
-                break;
-            }
-        }
+        for (; j > 0 && b[j - 1] > k; --j) b[j] = b[j - 1];
         b[j] = k;
     }
     for (size_t i = 0; i < n; ++i) y[i] = from_key(b[i]);

@@ -23,9 +23,12 @@ void owen_prefix_masks(uint64_t key, int L, uint32_t *mask, Simd simd) {
     // Level k holds, for each prefix q of k - 1 digits, the flips of digits 1..k; level
     // k + 1 is built from it in place, from the top index down (q >> 1 <= q).
     mask[0] = static_cast<uint32_t>(flip_bit(key, 1, 0) << 31);
-    for (unsigned k = 1; k <= static_cast<unsigned>(L); ++k)
-        for (uint64_t q = simd == Simd::kAuto ? prefix_level_avx512(key, k, mask) : uint64_t{1} << k; q-- > 0;)
+    for (unsigned k = 1; k <= static_cast<unsigned>(L); ++k) {
+        // The vector build writes the upper prefixes of the level; the loop the rest.
+        const uint64_t rest = simd == Simd::kAuto ? prefix_level_avx512(key, k, mask) : uint64_t{1} << k;
+        for (uint64_t q = rest; q-- > 0;)
             mask[q] = mask[q >> 1] | static_cast<uint32_t>(flip_bit(key, k + 1, q) << (31 - k));
+    }
 }
 
 void owen_scramble_block(const uint32_t *x, size_t n, uint64_t key, int L, const uint32_t *mask,

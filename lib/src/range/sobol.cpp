@@ -76,11 +76,4 @@ uint32_t sobol_point(uint64_t i, int j) {
 
 const uint32_t *sobol_steps(int j) { return kSteps[static_cast<std::size_t>(j)].data(); }
 
-uint32_t sobol_step(uint64_t i, int j) {
-    if (i == 0 || j < 0 || j >= kSobolDims) return 0;
-    const int t = __builtin_ctzll(i);
-    if (t >= kSobolBits) return 0;
-    return kSteps[static_cast<std::size_t>(j)][static_cast<std::size_t>(t)];
-}
-
 }  // namespace cto::core::range

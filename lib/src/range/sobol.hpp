@@ -29,13 +29,9 @@ uint32_t sobol_direction(int j, int k);
 // significant bit is the first base-2 digit.  Requires i < 2^32 and j < kSobolDims.
 uint32_t sobol_point(uint64_t i, int j);
 
-// The step between consecutive points in natural order: X_i = X_{i-1} ^ sobol_step(j, i)
-// for i >= 1 (the bits that change from i - 1 to i are the lowest ctz(i) + 1 bits, so the
-// step is v_1 ^ ... ^ v_{ctz(i)+1}).
-uint32_t sobol_step(uint64_t i, int j);
-
-// The row of dimension j of those steps: sobol_step(i, j) == sobol_steps(j)[ctz(i)] for
-// 1 <= i < 2^32 (for a loop that steps many points; j < kSobolDims).
+// The steps between consecutive points in natural order, dimension j < kSobolDims:
+// X_i = X_{i-1} ^ sobol_steps(j)[ctz(i)] for 1 <= i < 2^32 (the bits that change from
+// i - 1 to i are the lowest ctz(i) + 1 bits, so the step is v_1 ^ ... ^ v_{ctz(i)+1}).
 const uint32_t *sobol_steps(int j);
 
 }  // namespace cto::core::range
